@@ -1,0 +1,1 @@
+namespace NightSim.Cli; internal static class Program { private static int Main(string[] args) => 0; }

@@ -1,0 +1,2 @@
+namespace NightSim.Tests;
+public class SmokeTests { [Fact] public void Builds() => Assert.True(true); }
