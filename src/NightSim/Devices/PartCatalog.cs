@@ -16,6 +16,10 @@ public static class PartCatalog
         CurrentSource.Kind,
         Switch.Kind,
         Potentiometer.Kind,
+        Diode.Kind,
+        Zener.Kind,
+        Bjt.NpnKind,
+        Bjt.PnpKind,
     ];
 
     private static readonly Dictionary<string, PartKind> s_byName = s_kinds.ToDictionary(k => k.Name, StringComparer.Ordinal);
