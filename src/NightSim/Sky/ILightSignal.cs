@@ -3,15 +3,17 @@ namespace NightSim.Sky;
 /// <summary>Illuminance seen by the circuit's light sensors, on named channels, against run time.</summary>
 public interface ILightSignal
 {
-    /// <summary>Run time origin: run time t (seconds) corresponds to Origin + t.</summary>
+    /// <summary>Run time origin: run time t (seconds) corresponds to <c>Origin + t</c>.</summary>
     DateTimeOffset Origin { get; }
 
-    /// <summary>Channel index for a channel name ("sensor" is the default channel), or −1 if unknown.</summary>
+    /// <summary>Channel index for a channel name ("sensor" is the default channel), or -1 if unknown.</summary>
     int ChannelIndex(string name);
 
-    /// <summary>Illuminance in lux on channel <paramref name="channel"/> at run time <paramref name="time"/> (seconds since Origin). Pure, allocation-free, thread-safe.</summary>
+    /// <summary>Illuminance in lux on <paramref name="channel"/> at run time <paramref name="time"/> (seconds since
+    /// <see cref="Origin"/>). Pure, allocation-free, thread-safe.</summary>
     double Lux(int channel, double time);
 
-    /// <summary>The first known edge strictly after <paramref name="time"/>, seconds; +∞ if none. Allocation-free.</summary>
+    /// <summary>The first known edge (event start, peak or end, recorded-log sample, steady light on/off) strictly
+    /// after <paramref name="time"/>, in seconds; +∞ if none. Allocation-free.</summary>
     double NextBreakpoint(double time);
 }
