@@ -152,7 +152,7 @@ internal static class SkyCommand
 
     private static string Clock(DateOnly night, DateTimeOffset? t)
     {
-        if (t is not DateTimeOffset v) return "none".PadRight(22);
+        if (t is not DateTimeOffset v) return "none".PadRight(25);
         string day = DateOnly.FromDateTime(v.DateTime) == night ? "      " : "(+1 d)";
         return $"{v.ToString("HH:mm:ss", CultureInfo.InvariantCulture)} {day} UTC{v.ToString("zzz", CultureInfo.InvariantCulture)}";
     }

@@ -50,7 +50,7 @@ internal static class SkyPlot
         {
             Position = AxisPosition.Left, Minimum = 1e-4, Maximum = 2e5, Title = "illuminance", Unit = "lx",
             MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = OxyColor.FromRgb(0xE4, 0xE4, 0xE4),
-            StringFormat = "G3",
+            LabelFormatter = v => v.ToString("#,0.####", CultureInfo.InvariantCulture),
         });
 
         foreach (double level in new[] { 100.0, 10.0, 1.0 })
@@ -59,6 +59,7 @@ internal static class SkyPlot
             {
                 Type = LineAnnotationType.Horizontal, Y = level, Color = OxyColor.FromRgb(0x90, 0x90, 0x90),
                 LineStyle = LineStyle.Dash, Text = string.Create(ic, $"{level:G3} lx"), TextHorizontalAlignment = HorizontalAlignment.Left,
+                TextLinePosition = 0.005,
             });
         }
         void Mark(DateTimeOffset? t, string text, OxyColor color)

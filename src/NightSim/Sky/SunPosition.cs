@@ -69,7 +69,7 @@ public static class SunPosition
     {
         double t = (julianDay - 2451545.0) / 36525.0;
         double l0 = Mod360(280.46646 + t * (36000.76983 + 0.0003032 * t));
-        double m = 357.52911 + t * (35999.05029 - 0.0001537 * t);
+        double m = Mod360(357.52911 + t * (35999.05029 - 0.0001537 * t));
         double e = 0.016708634 - t * (0.000042037 + 0.0000001267 * t);
         double mr = m * Deg;
         double c = Math.Sin(mr) * (1.914602 - t * (0.004817 + 0.000014 * t))
