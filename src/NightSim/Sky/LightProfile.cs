@@ -11,7 +11,7 @@ namespace NightSim.Sky;
 /// </summary>
 public sealed class LightProfile : ILightSignal
 {
-    private const double SunGridSeconds = 60.0;
+    private const double SunGridSeconds = 30.0;
     /// <summary>Events longer than this go to the linear list instead of the index (steady lights).</summary>
     private const double LongEventSeconds = 600.0;
 
@@ -39,7 +39,7 @@ public sealed class LightProfile : ILightSignal
         Site site = scenario.Site;
         Duration = Timeline.Duration;
 
-        // Sun elevation on a 60 s grid; Lux interpolates it linearly (curvature error ≪ 0.001° over a minute).
+        // Sun elevation on a 30 s grid; Lux interpolates it linearly (curvature error below 5e-5°).
         int n = Math.Max(1, (int)Math.Ceiling(Duration / SunGridSeconds));
         _gridStep = Duration / n;
         _elevation = new double[n + 1];

@@ -100,7 +100,7 @@ public static class ScenarioLoader
         var events = new List<IEventDefinition>();
         if (root.TryGetProperty("events", out JsonElement evs))
         {
-            if (evs.ValueKind != JsonValueKind.Array) ctx.Error("$.events", "expected an array of events");
+            if (evs.ValueKind != JsonValueKind.Array) ctx.Error("$.events", "expected an array of events", "write \"events\": [ { \"kind\": \"headlights\", … } ]");
             else
             {
                 int i = 0;
@@ -202,7 +202,7 @@ public static class ScenarioLoader
             foreach (JsonProperty p in chans.EnumerateObject())
             {
                 string path = $"$.channels.{p.Name}";
-                if (p.Name == LightScenario.DefaultChannel) { ctx.Error(path, "\"sensor\" is the default channel; set its exposure under \"sensor\""); continue; }
+                if (p.Name == LightScenario.DefaultChannel) { ctx.Error(path, "\"sensor\" is the default channel", "set its exposure under the top-level \"sensor\""); continue; }
                 if (!ctx.ExpectObject(p.Value, path)) continue;
                 ctx.CheckProperties(p.Value, path, "exposure");
                 double? e = ctx.Number(p.Value, path, "exposure", null, required: true, min: 0, max: 10);

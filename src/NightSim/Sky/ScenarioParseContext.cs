@@ -44,7 +44,8 @@ public sealed class ScenarioParseContext
         foreach (JsonProperty p in obj.EnumerateObject())
         {
             if (Array.IndexOf(allowed, p.Name) >= 0) continue;
-            string? near = allowed.FirstOrDefault(a => string.Equals(a, p.Name, StringComparison.OrdinalIgnoreCase));
+            string? near = allowed.FirstOrDefault(a => string.Equals(a, p.Name, StringComparison.OrdinalIgnoreCase))
+                ?? allowed.Where(a => EditDistance(a, p.Name) <= 2).OrderBy(a => EditDistance(a, p.Name)).FirstOrDefault();
             Error($"{path}.{p.Name}", $"unknown property \"{p.Name}\"",
                 near is not null ? $"did you mean \"{near}\"?" : $"allowed here: {string.Join(", ", allowed)}");
         }
@@ -65,7 +66,7 @@ public sealed class ScenarioParseContext
         string p = $"{path}.{name}";
         if (!obj.TryGetProperty(name, out JsonElement v))
         {
-            if (required) Error(path, $"missing required property \"{name}\"", unit is null ? null : $"a value in {unit}");
+            if (required) Error(path, $"missing required property \"{name}\"", unit is null ? "add it as a number" : $"add it as a value in {unit}");
             return null;
         }
         double value;
@@ -80,10 +81,10 @@ public sealed class ScenarioParseContext
         }
         else
         {
-            Error(p, $"expected a number, found {Describe(v)}");
+            Error(p, $"expected a number, found {Describe(v)}", "write a number such as 2.5 or an engineering value such as \"300u\"");
             return null;
         }
-        if (!double.IsFinite(value)) { Error(p, "the value must be finite"); return null; }
+        if (!double.IsFinite(value)) { Error(p, "the value must be finite", "write an ordinary number"); return null; }
         if (min is double lo && (value < lo || (minExclusive && value == lo)))
         {
             Error(p, $"{F(value)} is too small", minExclusive ? $"must be greater than {F(lo)}" : $"must be at least {F(lo)}");
@@ -99,15 +100,15 @@ public sealed class ScenarioParseContext
         string p = $"{path}.{name}";
         if (!obj.TryGetProperty(name, out JsonElement v))
         {
-            if (required) Error(path, $"missing required property \"{name}\"");
+            if (required) Error(path, $"missing required property \"{name}\"", "add it as a whole number");
             return null;
         }
         if (v.ValueKind != JsonValueKind.Number || !v.TryGetInt64(out long value))
         {
-            Error(p, $"expected a whole number, found {Describe(v)}");
+            Error(p, $"expected a whole number, found {Describe(v)}", "write an integer without quotes, e.g. 3");
             return null;
         }
-        if (value < min || value > max) { Error(p, $"{value} is outside {min}…{max}"); return null; }
+        if (value < min || value > max) { Error(p, $"{value} is outside {min}…{max}", $"give a whole number from {min} to {max}"); return null; }
         return value;
     }
 
@@ -116,10 +117,10 @@ public sealed class ScenarioParseContext
     {
         if (!obj.TryGetProperty(name, out JsonElement v))
         {
-            if (required) Error(path, $"missing required property \"{name}\"");
+            if (required) Error(path, $"missing required property \"{name}\"", "add it as a quoted string");
             return null;
         }
-        if (v.ValueKind != JsonValueKind.String) { Error($"{path}.{name}", $"expected a string, found {Describe(v)}"); return null; }
+        if (v.ValueKind != JsonValueKind.String) { Error($"{path}.{name}", $"expected a string, found {Describe(v)}", "put the value in double quotes"); return null; }
         return v.GetString();
     }
 
@@ -128,7 +129,7 @@ public sealed class ScenarioParseContext
     {
         if (!obj.TryGetProperty(name, out JsonElement v)) return null;
         if (v.ValueKind is JsonValueKind.True or JsonValueKind.False) return v.GetBoolean();
-        Error($"{path}.{name}", $"expected true or false, found {Describe(v)}");
+        Error($"{path}.{name}", $"expected true or false, found {Describe(v)}", "write true or false without quotes");
         return null;
     }
 
@@ -147,7 +148,7 @@ public sealed class ScenarioParseContext
     public List<TimeSpan>? ClockList(JsonElement obj, string path, string name)
     {
         if (!obj.TryGetProperty(name, out JsonElement v)) return null;
-        if (v.ValueKind != JsonValueKind.Array) { Error($"{path}.{name}", $"expected an array of clock times, found {Describe(v)}"); return null; }
+        if (v.ValueKind != JsonValueKind.Array) { Error($"{path}.{name}", $"expected an array of clock times, found {Describe(v)}", "write e.g. [\"21:40\", \"23:05\"]"); return null; }
         var list = new List<TimeSpan>();
         int i = 0;
         foreach (JsonElement item in v.EnumerateArray())
@@ -189,6 +190,17 @@ public sealed class ScenarioParseContext
         JsonValueKind.Null => "null",
         _ => "nothing",
     };
+
+    private static int EditDistance(string a, string b)
+    {
+        var d = new int[a.Length + 1, b.Length + 1];
+        for (int i = 0; i <= a.Length; i++) d[i, 0] = i;
+        for (int j = 0; j <= b.Length; j++) d[0, j] = j;
+        for (int i = 1; i <= a.Length; i++)
+            for (int j = 1; j <= b.Length; j++)
+                d[i, j] = Math.Min(Math.Min(d[i - 1, j] + 1, d[i, j - 1] + 1), d[i - 1, j - 1] + (char.ToLowerInvariant(a[i - 1]) == char.ToLowerInvariant(b[j - 1]) ? 0 : 1));
+        return d[a.Length, b.Length];
+    }
 
     private static string F(double x) => x.ToString("G6", CultureInfo.InvariantCulture);
 }
