@@ -58,7 +58,8 @@ public static class NightPlotBuilder
         // Axis coordinate = seconds since local midnight of the origin's day, so major ticks fall on round clock times.
         DateTimeOffset originClock = ClockTime.At(data.Origin, data.TimeZone, 0);
         double shift = originClock.TimeOfDay.TotalSeconds;
-        string format = span > 3 * 3600 ? "HH:mm" : span > 180 ? "HH:mm:ss" : "HH:mm:ss.fff";
+        double step = NiceStep(span);
+        string format = step >= 60 ? "HH:mm" : step >= 1 ? "HH:mm:ss" : step >= 0.1 ? "HH:mm:ss.f" : step >= 0.01 ? "HH:mm:ss.ff" : "HH:mm:ss.fff";
 
         var model = new PlotModel
         {
@@ -82,8 +83,8 @@ public static class NightPlotBuilder
             Title = "local clock time (" + zone + ")",
             Minimum = data.From + shift,
             Maximum = data.To + shift,
-            MajorStep = NiceStep(span),
-            MinorStep = NiceStep(span) / 4,
+            MajorStep = step,
+            MinorStep = step / (step is 15 or 900 or 10800 ? 3 : step is 2 or 120 or 7200 or 0.2 or 0.02 or 0.002 or 20 ? 4 : 5),
             LabelFormatter = v => ClockTime.At(data.Origin, data.TimeZone, v - shift).ToString(format, s_inv),
             IsZoomEnabled = false,
             IsPanEnabled = false,
@@ -157,7 +158,12 @@ public static class NightPlotBuilder
             case PlotPanel.Light:
             {
                 (double lo, double hi) = LuxRange(data);
-                y = new LogarithmicAxis { Title = "illuminance", Unit = "lx", Minimum = lo, Maximum = hi, Base = 10, LabelFormatter = LuxLabel };
+                y = new LogarithmicAxis
+                {
+                    Title = "illuminance", Unit = "lx", Minimum = lo, Maximum = hi, Base = 10, LabelFormatter = LuxLabel,
+                    IntervalLength = 24, // short panel: still one label per decade
+                    MinorGridlineStyle = LineStyle.None,
+                };
                 break;
             }
             case PlotPanel.States:
@@ -172,6 +178,7 @@ public static class NightPlotBuilder
                     MinorStep = 1,
                     LabelFormatter = _ => "",
                     MajorGridlineStyle = LineStyle.None,
+                    TickStyle = TickStyle.None,
                 };
                 break;
             }
@@ -239,7 +246,8 @@ public static class NightPlotBuilder
         }
         if (hi <= 0) return (LuxFloor, 1);
         if (anyFloor) lo = LuxFloor;
-        double dLo = Math.Floor(Math.Log10(lo));
+        // A data minimum on (or just above) a decade gets one more decade below it, so the trace clears the frame.
+        double dLo = Math.Floor(Math.Log10(lo) - 0.05);
         double dHi = Math.Ceiling(Math.Log10(hi) + 1e-9);
         if (dHi - dLo < 1) dHi = dLo + 1;
         return (Math.Max(LuxFloor, Math.Pow(10, dLo)), Math.Pow(10, dHi));
@@ -247,7 +255,7 @@ public static class NightPlotBuilder
 
     private static void AddSeries(PlotModel model, PlotData data, PlotPanel panel, double shift)
     {
-        int colour = 0, lane = 0;
+        int colour = 0, lane = 0, dashed = 0;
         foreach (PlotSeries s in data.Series)
         {
             if (s.Panel != panel) continue;
@@ -274,9 +282,9 @@ public static class NightPlotBuilder
                 {
                     Text = LaneLabel(s.Title),
                     TextPosition = new DataPoint(data.From + shift, baseLine + 0.35),
-                    TextHorizontalAlignment = HorizontalAlignment.Right,
+                    TextHorizontalAlignment = HorizontalAlignment.Left,
                     TextVerticalAlignment = VerticalAlignment.Middle,
-                    Offset = new ScreenVector(-6, 0),
+                    Offset = new ScreenVector(6, 0),
                     Stroke = OxyColors.Transparent,
                     Background = OxyColors.Transparent,
                     TextColor = c,
@@ -291,6 +299,7 @@ public static class NightPlotBuilder
                 continue;
             }
 
+            LineStyle style = !s.Dashed ? LineStyle.Solid : dashed++ % 2 == 0 ? LineStyle.Dash : LineStyle.DashDot;
             OxyColor color = s.Dashed ? s_reference
                 : panel == PlotPanel.Light ? s_lightColors[colour++ % s_lightColors.Length]
                 : s_voltColors[colour++ % s_voltColors.Length];
@@ -299,7 +308,7 @@ public static class NightPlotBuilder
                 Title = s.Title,
                 Color = color,
                 StrokeThickness = s.Dashed ? 1.2 : 1.8,
-                LineStyle = s.Dashed ? LineStyle.Dash : LineStyle.Solid,
+                LineStyle = style,
                 Decimator = Decimator.Decimate,
                 XAxisKey = XKey,
                 YAxisKey = key,
@@ -346,8 +355,9 @@ public static class NightPlotBuilder
                     FontSize = 10.5,
                     FontWeight = m.Emphasis ? FontWeights.Bold : FontWeights.Normal,
                     TextOrientation = AnnotationTextOrientation.Vertical,
+                    // Labels sit after the line, or before it near the right edge so they are not cut off.
                     TextHorizontalAlignment = HorizontalAlignment.Right,
-                    TextVerticalAlignment = VerticalAlignment.Top,
+                    TextVerticalAlignment = (m.Time - data.From) / (data.To - data.From) > 0.9 ? VerticalAlignment.Bottom : VerticalAlignment.Top,
                     // Alternate label ends so neighbouring markers (sunset, civil dusk) do not overprint.
                     TextLinePosition = n % 2 == 0 ? 1 : 0.55,
                     TextMargin = 3,

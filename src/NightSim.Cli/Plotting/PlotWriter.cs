@@ -82,7 +82,8 @@ public static partial class PlotWriter
         var exporter = new OxyPlot.SvgExporter { Width = width, Height = height, IsDocument = isDocument };
         using var ms = new MemoryStream();
         exporter.Export(model, ms);
-        return Encoding.UTF8.GetString(ms.ToArray());
+        // The exporter writes a byte-order mark; SVG files and inline markup are plain UTF-8.
+        return Encoding.UTF8.GetString(ms.ToArray()).TrimStart('\uFEFF');
     }
 
     /// <summary>Add viewBox="0 0 w h" to the root svg element if it has none.</summary>
