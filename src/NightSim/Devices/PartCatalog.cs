@@ -9,6 +9,13 @@ public static class PartCatalog
     // One line per kind. Keep the order stable (help and schema list kinds in this order).
     private static readonly PartKind[] s_kinds =
     [
+        Comparator.Kind,
+        SrLatch.Kind,
+        Composite.Timer555.Kind,
+        Relay.Kind,
+        Light.Photoresistor.Kind,
+        Light.Photodiode.Kind,
+        Light.Phototransistor.Kind,
     ];
 
     private static readonly Dictionary<string, PartKind> s_byName = s_kinds.ToDictionary(k => k.Name, StringComparer.Ordinal);
