@@ -9,6 +9,13 @@ public static class PartCatalog
     // One line per kind. Keep the order stable (help and schema list kinds in this order).
     private static readonly PartKind[] s_kinds =
     [
+        Resistor.Kind,
+        Capacitor.Kind,
+        Inductor.Kind,
+        VoltageSource.Kind,
+        CurrentSource.Kind,
+        Switch.Kind,
+        Potentiometer.Kind,
         Comparator.Kind,
         SrLatch.Kind,
         Composite.Timer555.Kind,
