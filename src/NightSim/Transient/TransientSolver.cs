@@ -181,6 +181,14 @@ public sealed partial class TransientSolver
         foreach (Device d in _devices) d.PowerUp();
 
         Array.Clear(_x);
+        foreach (Device d in _devices)
+        {
+            if (d is Capacitor { InitialVoltage: double v0 } cap && cap.InnerNode >= 0)
+            {
+                int nn = _circuit.IndexOf(cap.Nodes[1]);
+                _x[cap.InnerNode] = v0 + (nn >= 0 ? _x[nn] : 0.0);
+            }
+        }
         if (_options.InitialVoltages is { } initial)
             foreach (var (node, v) in initial)
             {
@@ -268,7 +276,7 @@ public sealed partial class TransientSolver
                 if (!(r <= 1.0))
                 {
                     _stats.RejectedSteps++;
-                    double fac = double.IsFinite(r) ? 0.9 * Math.Pow(r, -1.0 / 3.0) : 0.1;
+                    double fac = double.IsFinite(r) ? 0.9 * Math.Pow(r / _options.ErrorTarget, -1.0 / 3.0) : 0.1;
                     _h = h * Math.Max(0.1, Math.Min(0.9, fac));
                     _rejectedLast = true;
                     if (_h < hMin)
@@ -316,6 +324,14 @@ public sealed partial class TransientSolver
             {
                 _stats.Breakpoints++;
                 double tNow = _time.Value;
+                if (SourcesJumpAt(tNow))
+                {
+                    // An ideal edge: x_n is inconsistent with the sources just after it. Restart with backward Euler.
+                    _needRestart = true;
+                    _havePrev = false;
+                    _h = _options.FixedStep ?? _options.RestartStep;
+                    return _time.Value < _stop;
+                }
                 double next = NextBreakpoint(tNow);
                 double hSharp = (next - tNow) / 10.0;
                 _h = _options.FixedStep ?? Math.Min(hNext, Math.Max(hSharp, _options.RestartStep));
@@ -342,7 +358,7 @@ public sealed partial class TransientSolver
 
     private double ProposeStep(double h, double r)
     {
-        double fac = r > 0 ? 0.9 * Math.Pow(r, -1.0 / 3.0) : _options.MaxGrowth;
+        double fac = r > 0 ? 0.9 * Math.Pow(r / _options.ErrorTarget, -1.0 / 3.0) : _options.MaxGrowth;
         double hNew;
         if (fac >= 1.0 && fac <= 1.2) hNew = h; // hysteresis: keep h
         else hNew = h * Math.Min(_options.MaxGrowth, Math.Max(0.2, fac));
@@ -629,6 +645,28 @@ public sealed partial class TransientSolver
     }
 
     // ---------------------------------------------------------------- breakpoints
+
+    /// <summary>
+    /// True when the sources jump at <paramref name="t"/> (an ideal edge) rather than only changing slope: the change of
+    /// j(x_n, ·) over [t, t + δ] is compared with its change over [t + δ, t + 2δ]; a slope gives two equal changes,
+    /// a jump gives one change and then none.
+    /// </summary>
+    private bool SourcesJumpAt(double t)
+    {
+        double delta = Math.Max(1e-15, 64.0 * (Math.BitIncrement(Math.Max(Math.Abs(t), 1e-300)) - Math.Abs(t)));
+        Evaluate(_x, t);
+        Array.Copy(_ctx.J, _rhs, _n);
+        Evaluate(_x, t + delta);
+        Array.Copy(_ctx.J, _err, _n);
+        Evaluate(_x, t + 2.0 * delta);
+        for (int i = 0; i < _n; i++)
+        {
+            double d1 = _err[i] - _rhs[i];
+            double d2 = _ctx.J[i] - _err[i];
+            if (Math.Abs(d1) > 10.0 * _newtonAtol[i] && Math.Abs(d1 - d2) > 0.5 * Math.Abs(d1)) return true;
+        }
+        return false;
+    }
 
     private double NextBreakpoint(double t)
     {
