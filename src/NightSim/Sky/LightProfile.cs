@@ -16,6 +16,8 @@ public sealed class LightProfile : ILightSignal
     private const double LongEventSeconds = 600.0;
 
     private readonly double[] _elevation;
+    private readonly double[] _logSunLux;
+    private readonly bool[] _exactInterval;
     private readonly double _gridStep;
     private readonly double _skyFactor;
     private readonly double _nightLux;
@@ -48,6 +50,13 @@ public sealed class LightProfile : ILightSignal
 
         Weather w = scenario.Weather;
         _skyFactor = w.SkyFactor;
+        // ln of the model's Sun term on the same grid: Lux interpolates it (relative error ≪ 1e-4 over 30 s); the
+        // intervals holding the model's −5/6° step are evaluated exactly so the step stays a step.
+        _logSunLux = new double[n + 1];
+        _exactInterval = new bool[n];
+        for (int i = 0; i <= n; i++) _logSunLux[i] = Math.Log(Math.Max(IlluminanceModel.SunLux(_elevation[i], _skyFactor), 1e-300));
+        for (int i = 0; i < n; i++)
+            _exactInterval[i] = (_elevation[i] < IlluminanceModel.RefractionSwitchElevation) != (_elevation[i + 1] < IlluminanceModel.RefractionSwitchElevation);
         _nightLux = (IlluminanceModel.ClearNightFloorLux + w.MoonLux) / w.SkyFactor;
         _floorLux = w.FloorLux;
         _channelNames = [.. scenario.Channels.Select(c => c.Name)];
@@ -173,7 +182,21 @@ public sealed class LightProfile : ILightSignal
 
     /// <summary>Open-sky illuminance from the synthetic sky at <paramref name="time"/> (Sun, night floor, Moon, weather, clouds), lux.</summary>
     public double SkyLux(double time)
-        => (IlluminanceModel.SunLux(SunElevation(time), _skyFactor) + _nightLux) * _clouds.Product(time);
+    {
+        double sun;
+        if (time < 0 || time > Duration) sun = IlluminanceModel.SunLux(SunElevation(time), _skyFactor);
+        else
+        {
+            double x = time / _gridStep;
+            int i = Math.Min((int)x, _elevation.Length - 2);
+            double f = x - i;
+            sun = _exactInterval[i]
+                ? IlluminanceModel.SunLux(_elevation[i] + f * (_elevation[i + 1] - _elevation[i]), _skyFactor)
+                : Math.Exp(_logSunLux[i] + f * (_logSunLux[i + 1] - _logSunLux[i]));
+        }
+        double clouds = _clouds.Count == 0 ? 1.0 : _clouds.Product(time);
+        return (sun + _nightLux) * clouds;
+    }
 
     /// <inheritdoc />
     public double Lux(int channel, double time)
