@@ -68,20 +68,40 @@ public static partial class PlotWriter
     /// The plot as an &lt;svg&gt; element for inline use in HTML: no XML prolog or doctype, a viewBox so it scales
     /// to the page width, and every id made unique with <paramref name="idPrefix"/> (several plots share one page).
     /// </summary>
-    public static string ToInlineSvg(PlotModel model, string idPrefix, int width = DefaultWidth, int height = DefaultHeight)
+    /// <param name="model">The plot.</param>
+    /// <param name="idPrefix">Prefix for every id, unique per figure on the page (e.g. "fig1-").</param>
+    /// <param name="includeTitle">False to leave the plot title out (the page shows it as the figure caption).</param>
+    /// <param name="width">Width in SVG user units.</param>
+    /// <param name="height">Height in SVG user units.</param>
+    public static string ToInlineSvg(PlotModel model, string idPrefix, bool includeTitle = true, int width = DefaultWidth, int height = DefaultHeight)
     {
-        string svg = Export(model, width, height, isDocument: false);
+        string svg = Export(model, width, height, isDocument: false, includeTitle);
         int start = svg.IndexOf("<svg", StringComparison.Ordinal);
         if (start > 0) svg = svg[start..];
         svg = AddViewBox(svg, width, height);
         return PrefixIds(svg, idPrefix);
     }
 
-    private static string Export(PlotModel model, int width, int height, bool isDocument)
+    private static string Export(PlotModel model, int width, int height, bool isDocument, bool includeTitle = true)
     {
         var exporter = new OxyPlot.SvgExporter { Width = width, Height = height, IsDocument = isDocument };
+        // Measure text with the real font (as the PNG does); the exporter's built-in estimate is too narrow for it,
+        // which lets legends and axis titles overprint in browsers.
+        using OxyPlot.SkiaSharp.SkiaRenderContext? measurer = PngFontAvailable
+            ? new OxyPlot.SkiaSharp.SkiaRenderContext { RenderTarget = OxyPlot.SkiaSharp.RenderTarget.VectorGraphic }
+            : null;
+        if (measurer is not null) exporter.TextMeasurer = measurer;
         using var ms = new MemoryStream();
-        exporter.Export(model, ms);
+        string? title = model.Title;
+        try
+        {
+            if (!includeTitle) model.Title = null;
+            exporter.Export(model, ms);
+        }
+        finally
+        {
+            model.Title = title;
+        }
         // The exporter writes a byte-order mark; SVG files and inline markup are plain UTF-8.
         return Encoding.UTF8.GetString(ms.ToArray()).TrimStart('\uFEFF');
     }

@@ -90,7 +90,7 @@ public static class HtmlReportWriter
     private static readonly string[] s_nightHeads =
     [
         "Date", "Sunset", "Switch level", "On", "Off", "Duration", "Cause", "Expected",
-        "False triggers", "Early offs", "Chatter", "Relay ops", "Energy (Wh)", "Missed", "On after sunrise",
+        "False triggers", "Early offs", "Chatter", "Relay ops", "Energy (Wh)", "Missed", "On at sunrise",
     ];
 
     private static void AppendNights(StringBuilder h, IReadOnlyList<NightSummary> nights)
@@ -124,10 +124,10 @@ public static class HtmlReportWriter
                 else
                 {
                     Cell(h, "", ReportText.Clock(on.Start));
-                    h.Append("<td>").Append(Esc(on.End is null ? "still on" : ReportText.Clock(on.End)))
+                    h.Append("<td class=\"off\">").Append(Esc(on.End is null ? "still on" : ReportText.Clock(on.End)))
                      .Append("<div class=\"note\">").Append(Esc(on.EndedBy)).Append("</div></td>");
                     Cell(h, "", ReportText.Duration(on.DurationSeconds), "num");
-                    h.Append("<td>").Append(Esc(ReportText.Cause(on.Cause)));
+                    h.Append("<td class=\"cause\">").Append(Esc(ReportText.Cause(on.Cause)));
                     if (on.Explanation.Length > 0) h.Append("<div class=\"note\">").Append(Esc(on.Explanation)).Append("</div>");
                     h.Append("</td>");
                     h.Append(on.Expected ? "<td class=\"yes\">yes</td>" : "<td class=\"no\">no</td>");
@@ -278,10 +278,10 @@ ul.findings { list-style: none; padding: 0; margin: 0; }
 .badge.warning { background: #b27700; }
 .badge.info { background: #3b6ea8; }
 .scroll { overflow-x: auto; }
-table { border-collapse: collapse; font-size: 0.88em; }
+table { border-collapse: collapse; font-size: 0.85em; }
 table.nights, table.events { width: 100%; }
-th, td { padding: 5px 8px; border-bottom: 1px solid #e1e6ec; text-align: left; vertical-align: top; }
-thead th { background: #e8edf3; color: #1f3a56; font-weight: 600; border-bottom: 2px solid #c5cfdb; }
+th, td { padding: 5px 5px; border-bottom: 1px solid #e1e6ec; text-align: left; vertical-align: top; }
+thead th { vertical-align: bottom; background: #e8edf3; color: #1f3a56; font-weight: 600; border-bottom: 2px solid #c5cfdb; }
 table.nights thead th { font-size: 0.92em; }
 table.nights tbody.night:nth-of-type(even) td, table.events tbody tr:nth-child(even) td { background: #f6f8fa; }
 table.nights tbody.night td { border-bottom: 1px solid #d0d7df; }
@@ -292,6 +292,8 @@ td.yes { color: #24492f; }
 td.no { color: #b42318; font-weight: 700; }
 tr.unexpected td { background: #fdf0ef; }
 .note { color: #5b6875; font-size: 0.86em; }
+td.cause { min-width: 9em; }
+
 details summary { cursor: pointer; color: #17324d; font-weight: 600; margin: 4px 0 8px; }
 figure { margin: 14px 0 26px; }
 figcaption { font-weight: 600; color: #17324d; margin-bottom: 6px; }
