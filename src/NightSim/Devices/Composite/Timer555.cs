@@ -24,7 +24,7 @@ public static class Timer555
     private static readonly ParameterSpec s_resetThreshold = ParameterSpec.Number("resetThreshold", "V", "Reset pin threshold above gnd (0.7 V both families; from memory)") with { Min = 0, Max = 20 };
     private static readonly ParameterSpec s_dischargeResistance = ParameterSpec.Number("dischargeResistance", "Ω", "Discharge switch on-resistance (bipolar 10 Ω, CMOS 15 Ω; from memory)") with { Min = 1e-3, Max = 1e6 };
     private static readonly ParameterSpec s_dischargeOffResistance = ParameterSpec.Number("dischargeOffResistance", "Ω", "Discharge switch off-resistance, i.e. leakage (bipolar 500 MΩ ≈ 20 nA at 10 V, CMOS 10 GΩ; common practice)") with { Min = 1e3, Max = 1e18 };
-    private static readonly ParameterSpec s_supplyCurrent = ParameterSpec.Number("supplyCurrent", "A", "Quiescent supply current at supplyNominal, divider included; proportional to supply (bipolar 10 mA, CMOS 0.2 mA at 15 V; common practice)") with { Min = 0, Max = 0.1 };
+    private static readonly ParameterSpec s_supplyCurrent = ParameterSpec.Number("supplyCurrent", "A", "Quiescent supply current at supplyNominal, divider included; proportional to supply (bipolar 8 mA, CMOS 0.2 mA at 15 V; common practice band 3–10 mA and 0.1–0.4 mA)") with { Min = 0, Max = 0.1 };
     private static readonly ParameterSpec s_supplyNominal = ParameterSpec.Number("supplyNominal", "V", "Supply voltage at which supplyCurrent is given") with { Default = 15.0, Min = 1, Max = 30 };
     private static readonly ParameterSpec s_dividerResistance = ParameterSpec.Number("dividerResistance", "Ω", "Each of the three internal divider legs (bipolar 5 kΩ, CMOS 100 kΩ; from memory)") with { Min = 1, Max = 1e9 };
     private static readonly ParameterSpec s_outputDropHigh = ParameterSpec.Number("outputDropHigh", "V", "High output level below vcc, unloaded (bipolar 1.4 V, CMOS 0 V; common practice)") with { Min = 0, Max = 5 };
@@ -43,7 +43,7 @@ public static class Timer555
 
     // Common practice for the part class (check-values §6 table: input currents, leakage, supply current, output drop);
     // divider legs, reset values, discharge and output resistances from memory.
-    private static readonly Family s_bipolar = new(30e-9, 0.5e-6, 0.1e-3, 0.7, 10.0, 500e6, 10e-3, 5e3, 1.4, 0.05, 3.0, 10.0);
+    private static readonly Family s_bipolar = new(30e-9, 0.5e-6, 0.1e-3, 0.7, 10.0, 500e6, 8e-3, 5e3, 1.4, 0.05, 3.0, 10.0);
     private static readonly Family s_cmos = new(10e-12, 10e-12, 10e-12, 0.7, 15.0, 10e9, 0.2e-3, 100e3, 0.0, 0.0, 150.0, 20.0);
 
     public static PartKind Kind { get; } = new()
