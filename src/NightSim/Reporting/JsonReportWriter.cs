@@ -14,7 +14,12 @@ public static class JsonReportWriter
     /// <summary>Write <paramref name="report"/> as indented UTF-8 JSON to <paramref name="stream"/>.</summary>
     public static void Write(NightReport report, Stream stream)
     {
-        using var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true });
+        using var w = new Utf8JsonWriter(stream, new JsonWriterOptions
+        {
+            Indented = true,
+            // Readable '+' in time offsets and plain Unicode in messages; the file is data, never embedded in HTML.
+            Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+        });
         w.WriteStartObject();
         w.WriteString("tool", report.Tool);
         w.WriteString("netlist", report.Netlist);

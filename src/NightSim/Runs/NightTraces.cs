@@ -101,7 +101,7 @@ public static class NightTraces
         {
             k++;
             if (w.Times.Count < 2) continue;
-            double from = w.Times[0], to = w.Times[^1];
+            double from = Math.Max(w.Times[0], w.EventTime - zoom.Before), to = Math.Min(w.Times[^1], w.EventTime + zoom.After);
             double[] times = [.. w.Times];
             var series = new List<PlotSeries>();
             if (profile is not null) series.Add(LuxSeries(facts, profile, times, from, to));

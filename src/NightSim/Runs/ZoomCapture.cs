@@ -75,7 +75,11 @@ public sealed class ZoomCapture
         for (int n = 0; n < _count; n++)
         {
             int slot = (start + n) % _ringTimes.Length;
-            if (_ringTimes[slot] < time - Before) continue;
+            // Keep the last point before the window too, so the plot's lines enter from its left edge even when
+            // the steps before the event were longer than the window.
+            int nextSlot = (slot + 1) % _ringTimes.Length;
+            bool lastBefore = n + 1 < _count && _ringTimes[nextSlot] >= time - Before;
+            if (_ringTimes[slot] < time - Before && !lastBefore) continue;
             w.AppendRow(_ringTimes[slot], _ringValues.AsSpan(slot * _width, _width));
         }
         _windows.Add(w);

@@ -233,7 +233,10 @@ public sealed partial class TransientSolver
         if (_failure is not null) return false;
         double t = _time.Value;
         if (t >= _stop) return false;
-        double hMin = Math.Max(_options.MinStep, 16.0 * (Math.BitIncrement(Math.Max(Math.Abs(t), 1e-300)) - Math.Abs(t)));
+        // Smallest step: a few ulps of the absolute time, so that t + γh is still a distinct time for the devices.
+        // The step itself is carried exactly (SimTime keeps the rounding), so 4 ulps suffice; 16 ulps (6e-11 s five
+        // hours into a night) was too coarse for a transistor discharging a coil's winding capacitance in 2 ns.
+        double hMin = Math.Max(_options.MinStep, 4.0 * (Math.BitIncrement(Math.Max(Math.Abs(t), 1e-300)) - Math.Abs(t)));
 
         while (true)
         {
