@@ -54,6 +54,11 @@ public static class NightPlotBuilder
     {
         double span = data.To - data.From;
         if (!(span > 0)) throw new ArgumentException($"plot '{data.FileStem}': window end must be after its start");
+        foreach (PlotSeries s in data.Series)
+        {
+            if (s.Times.Length != s.Values.Length)
+                throw new ArgumentException($"plot '{data.FileStem}', series '{s.Title}': {s.Times.Length} times but {s.Values.Length} values");
+        }
 
         // Axis coordinate = seconds since local midnight of the origin's day, so major ticks fall on round clock times.
         DateTimeOffset originClock = ClockTime.At(data.Origin, data.TimeZone, 0);
@@ -316,6 +321,7 @@ public static class NightPlotBuilder
                 CanTrackerInterpolatePoints = false,
             };
             bool light = panel == PlotPanel.Light;
+            line.Points.Capacity = b - a;
             for (int i = a; i < b; i++)
             {
                 double v = s.Values[i];
