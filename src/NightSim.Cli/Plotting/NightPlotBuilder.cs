@@ -63,8 +63,15 @@ public static class NightPlotBuilder
         // Axis coordinate = seconds since local midnight of the origin's day, so major ticks fall on round clock times.
         DateTimeOffset originClock = ClockTime.At(data.Origin, data.TimeZone, 0);
         double shift = originClock.TimeOfDay.TotalSeconds;
-        double step = NiceStep(span);
-        string format = step >= 60 ? "HH:mm" : step >= 1 ? "HH:mm:ss" : step >= 0.1 ? "HH:mm:ss.f" : step >= 0.01 ? "HH:mm:ss.ff" : "HH:mm:ss.fff";
+        double step = NiceStep(span, 12);
+        string format = span > 30 * 3600 ? "MM-dd HH:mm"
+            : step >= 60 ? "HH:mm" : step >= 1 ? "HH:mm:ss" : step >= 0.1 ? "HH:mm:ss.f" : step >= 0.01 ? "HH:mm:ss.ff" : "HH:mm:ss.fff";
+        if (format.Length > 8)
+        {
+            // Long labels: fewer ticks so neighbours do not overprint.
+            step = NiceStep(span, 8);
+            if (span <= 30 * 3600) format = step >= 1 ? "HH:mm:ss" : step >= 0.1 ? "HH:mm:ss.f" : step >= 0.01 ? "HH:mm:ss.ff" : "HH:mm:ss.fff";
+        }
 
         var model = new PlotModel
         {
@@ -394,11 +401,11 @@ public static class NightPlotBuilder
         3600, 7200, 10800, 21600, 43200, 86400,
     ];
 
-    /// <summary>A round clock step giving about 8–12 labelled ticks over <paramref name="span"/> seconds.</summary>
-    private static double NiceStep(double span)
+    /// <summary>The smallest round clock step giving at most <paramref name="maxTicks"/> labelled ticks over <paramref name="span"/> seconds.</summary>
+    private static double NiceStep(double span, int maxTicks)
     {
         foreach (double step in s_steps)
-            if (span / step <= 12) return step;
+            if (span / step <= maxTicks) return step;
         return s_steps[^1];
     }
 }
