@@ -25,6 +25,7 @@ public sealed class CurrentSource : Device
         Pins = ["p", "n"],
         UsesNodeList = true,
         Parameters = Waveform.Specs("A", 1e3),
+        Check = Waveform.CheckChoice,
         Create = def => [new CurrentSource(def.Id, def.Id, def.Node("p"), def.Node("n"), Waveform.FromParameters(def.Parameters))],
         ConductsDc = false,
     };

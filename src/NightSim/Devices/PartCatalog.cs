@@ -16,6 +16,17 @@ public static class PartCatalog
         CurrentSource.Kind,
         Switch.Kind,
         Potentiometer.Kind,
+        Diode.Kind,
+        Zener.Kind,
+        Bjt.NpnKind,
+        Bjt.PnpKind,
+        Comparator.Kind,
+        SrLatch.Kind,
+        Composite.Timer555.Kind,
+        Relay.Kind,
+        Light.Photoresistor.Kind,
+        Light.Photodiode.Kind,
+        Light.Phototransistor.Kind,
     ];
 
     private static readonly Dictionary<string, PartKind> s_byName = s_kinds.ToDictionary(k => k.Name, StringComparer.Ordinal);

@@ -30,6 +30,7 @@ public sealed class VoltageSource : Device
         Pins = ["p", "n"],
         UsesNodeList = true,
         Parameters = Waveform.Specs("V", 1e6),
+        Check = Waveform.CheckChoice,
         Create = def => [new VoltageSource(def.Id, def.Id, def.Node("p"), def.Node("n"), Waveform.FromParameters(def.Parameters))],
         ConductsDc = true,
         IsVoltageSource = true,

@@ -101,6 +101,14 @@ public sealed class Waveform
         ParameterSpec.PointList("pwl", unit, $"Piecewise-linear [[time, value], ...] ({unit}), times increasing.") with { ExclusiveGroup = "waveform" },
     ];
 
+    /// <summary>Cross-check for source kinds: exactly one of dc, pulse, sine, pwl must be given.</summary>
+    public static IEnumerable<string> CheckChoice(PartDefinition part)
+    {
+        PartParameters p = part.Parameters;
+        if (!p.Has("dc") && !p.Has("pulse") && !p.Has("sine") && !p.Has("pwl"))
+            yield return "no waveform given. hint: add one of \"dc\": \"12V\", \"pulse\": { … }, \"sine\": { … } or \"pwl\": [[t, v], …]";
+    }
+
     /// <summary>Builds the waveform from validated part parameters (one of dc, pulse, sine, pwl; none = dc 0).</summary>
     public static Waveform FromParameters(PartParameters p)
     {
