@@ -5,10 +5,19 @@ namespace NightSim.Cli;
 
 internal static class Program
 {
-    private static int Main(string[] args)
+    private static int Main(string[] args) => CreateRoot().Parse(args).Invoke();
+
+    /// <summary>The `nightsim` root command with every verb (tests invoke it in-process).</summary>
+    internal static RootCommand CreateRoot()
     {
-        var root = new RootCommand("nightsim: dusk-activated, time-limited lighting controllers through synthetic nights");
+        var root = new RootCommand(
+            "NightSim: simulate dusk-activated, time-limited lighting controllers through synthetic nights before you solder and mount them.");
+
+        // Verbs: one line each, in help order.
+        root.Subcommands.Add(CheckCommand.Create());
+        root.Subcommands.Add(SimulateCommand.Create());
         root.Subcommands.Add(SkyCommand.Create());
-        return root.Parse(args).Invoke();
+
+        return root;
     }
 }

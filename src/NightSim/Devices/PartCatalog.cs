@@ -9,6 +9,24 @@ public static class PartCatalog
     // One line per kind. Keep the order stable (help and schema list kinds in this order).
     private static readonly PartKind[] s_kinds =
     [
+        Resistor.Kind,
+        Capacitor.Kind,
+        Inductor.Kind,
+        VoltageSource.Kind,
+        CurrentSource.Kind,
+        Switch.Kind,
+        Potentiometer.Kind,
+        Diode.Kind,
+        Zener.Kind,
+        Bjt.NpnKind,
+        Bjt.PnpKind,
+        Comparator.Kind,
+        SrLatch.Kind,
+        Composite.Timer555.Kind,
+        Relay.Kind,
+        Light.Photoresistor.Kind,
+        Light.Photodiode.Kind,
+        Light.Phototransistor.Kind,
     ];
 
     private static readonly Dictionary<string, PartKind> s_byName = s_kinds.ToDictionary(k => k.Name, StringComparer.Ordinal);

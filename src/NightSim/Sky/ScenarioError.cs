@@ -19,10 +19,13 @@ public sealed record ScenarioError(string File, string Path, string Message, str
 }
 
 /// <summary>Thrown when a scenario cannot be used; carries every problem found, not only the first.</summary>
-public sealed class ScenarioException : Exception
+public sealed class ScenarioException : Netlist.InputFileException
 {
     public ScenarioException(IReadOnlyList<ScenarioError> errors)
         : base(string.Join(Environment.NewLine, errors.Select(e => e.ToString()))) => Errors = errors;
+
+    /// <inheritdoc />
+    public override IReadOnlyList<string> Lines => [.. Errors.Select(e => e.ToString())];
 
     /// <summary>All problems, in file order.</summary>
     public IReadOnlyList<ScenarioError> Errors { get; }

@@ -7,10 +7,13 @@ namespace NightSim.Units;
 /// The only place in the engine where SI prefixes exist; everything inside is plain SI.
 /// </summary>
 /// <remarks>
-/// Prefix letters follow the SI brochure (BIPM, 9th edition, table 7): "m" is milli and "M" is mega.
-/// "u" and "µ" are both micro. "k" and "K" are both kilo (the upper-case form is common practice on parts lists).
-/// A letter between digits stands for the decimal point ("4k7" = 4.7e3, "2R2" = 2.2, common practice on
-/// resistor markings). A trailing unit symbol is allowed and checked against the expected unit when one is given.
+/// Prefix letters follow the SI brochure (BIPM, 9th edition, table 7): T G M k m u/µ n p f, where "m" is milli and
+/// "M" is mega. "u" and "µ" are both micro. "k" and "K" are both kilo (the upper-case form is common practice on parts
+/// lists). A letter between digits stands for the decimal point ("4k7" = 4.7e3, "2R2" = 2.2, common practice on
+/// resistor markings, IEC 60062 letter code). A trailing unit symbol is allowed and checked against the expected unit.
+/// "%" scales by 0.01 on dimensionless values ("5%" = 0.05). Where seconds are expected, "min" (60 s) and "h"
+/// (3600 s) are accepted as well. "meg" is rejected as ambiguous (m is milli); so is a decimal point together with a
+/// letter used as the decimal point ("1.5k7").
 /// </remarks>
 public static class EngineeringValue
 {
@@ -20,25 +23,44 @@ public static class EngineeringValue
         ("m", 1e-3), ("u", 1e-6), ("µ", 1e-6), ("μ", 1e-6), ("n", 1e-9), ("p", 1e-12), ("f", 1e-15),
     ];
 
-    /// <summary>Unit symbols the parser accepts after a value.</summary>
+    private static readonly (string Symbol, double Factor)[] s_printPrefixes =
+    [
+        ("T", 1e12), ("G", 1e9), ("M", 1e6), ("k", 1e3), ("", 1), ("m", 1e-3), ("µ", 1e-6), ("n", 1e-9), ("p", 1e-12), ("f", 1e-15),
+    ];
+
+    private const string PrefixList = "T G M k m u µ n p f (m is milli, M is mega)";
+
+    /// <summary>Unit symbols the parser accepts after a value when no particular unit is expected.</summary>
     public static readonly IReadOnlyList<string> KnownUnits =
         ["V", "A", "Ω", "Ohm", "ohm", "R", "F", "H", "W", "Hz", "s", "lx", "S", "J", "Wh", "°C", "C", "K", "%", "cd", "deg", "°"];
 
-    /// <summary>Parses <paramref name="text"/>; on failure <paramref name="error"/> says why and gives a hint.</summary>
+    /// <summary>Parses <paramref name="text"/>; on failure <paramref name="error"/> says why and gives a hint
+    /// ("message; hint").</summary>
     /// <param name="text">The value as written, e.g. "4k7" or "100nF".</param>
-    /// <param name="expectedUnit">Unit symbol the value may carry ("F", "Ω", …), or null to accept any known unit.</param>
+    /// <param name="expectedUnit">Unit symbol the value may carry ("F", "Ω", …), "" for a dimensionless value (only
+    /// "%" allowed), or null to accept any known unit.</param>
     public static bool TryParse(string? text, string? expectedUnit, out double value, out string? error)
+    {
+        bool ok = TryParse(text, expectedUnit, out value, out EngineeringValueError? e);
+        error = e?.ToString();
+        return ok;
+    }
+
+    /// <summary>Parses <paramref name="text"/>; on failure <paramref name="error"/> holds the message and a separate hint.</summary>
+    public static bool TryParse(string? text, string? expectedUnit, out double value, out EngineeringValueError? error)
     {
         value = double.NaN;
         error = null;
         if (string.IsNullOrWhiteSpace(text))
         {
-            error = "empty value; write a number such as \"4k7\", \"100n\" or \"12\"";
+            error = new("empty value", "write a number such as \"4k7\", \"100n\" or \"12\"");
             return false;
         }
 
         string s = text.Trim().Replace(" ", "", StringComparison.Ordinal);
-        if (s.Equals("inf", StringComparison.OrdinalIgnoreCase) || s.Equals("infinity", StringComparison.OrdinalIgnoreCase))
+        string bare = s.TrimStart('+');
+        if (bare.Equals("inf", StringComparison.OrdinalIgnoreCase) || bare.Equals("infinity", StringComparison.OrdinalIgnoreCase)
+            || bare == "∞")
         {
             value = double.PositiveInfinity;
             return true;
@@ -51,10 +73,13 @@ public static class EngineeringValue
         while (i < s.Length && (char.IsAsciiDigit(s[i]) || s[i] == '.')) i++;
         if (i == digitsStart)
         {
-            error = $"\"{text}\" does not start with a number; write e.g. \"4k7\", \"100n\" or \"2.2M\"";
+            error = s.StartsWith('R') || s.StartsWith('r')
+                ? new($"\"{text}\" does not start with a number", $"write a leading zero, e.g. \"0R47\" or \"0.47\"")
+                : new($"\"{text}\" does not start with a number", "write e.g. \"4k7\", \"100n\" or \"2.2M\"");
             return false;
         }
         // Exponent only if followed by a digit (so "1e-3" works but "1E" is not eaten).
+        bool hasExponent = false;
         if (i < s.Length && (s[i] == 'e' || s[i] == 'E'))
         {
             int j = i + 1;
@@ -63,30 +88,47 @@ public static class EngineeringValue
             {
                 while (j < s.Length && char.IsAsciiDigit(s[j])) j++;
                 i = j;
+                hasExponent = true;
             }
         }
         string number = s[..i];
         string rest = s[i..];
-        if (!double.TryParse(number, NumberStyles.Float, CultureInfo.InvariantCulture, out double mantissa))
+        if (!double.TryParse(number, NumberStyles.Float, CultureInfo.InvariantCulture, out double mantissa)
+            || number.Count(c => c == '.') > 1)
         {
-            error = $"\"{text}\" is not a number";
+            error = new($"\"{text}\" is not a number", "use one decimal point, e.g. \"2.2M\"");
+            return false;
+        }
+        if (rest.StartsWith(','))
+        {
+            error = new($"\"{text}\" uses a decimal comma", "use a decimal point (\"4.7k\") or the prefix as the point (\"4k7\")");
             return false;
         }
 
-        double factor = 1.0;
+        // "meg"/"Meg" is not accepted: it is ambiguous next to "m" = milli; say so.
+        if (rest.StartsWith("meg", StringComparison.OrdinalIgnoreCase))
+        {
+            error = new($"\"{text}\": \"{rest[..3]}\" is ambiguous", "use \"M\" for mega (m is milli), e.g. \"2.2M\"");
+            return false;
+        }
+
         // Prefix letter used as the decimal point: "4k7", "2R2", "1M5".
-        if (rest.Length >= 2 && !number.Contains('.') && !number.Contains('e') && !number.Contains('E'))
+        if (rest.Length >= 2 && !hasExponent)
         {
             string letter = rest[..1];
             int k = 1;
             while (k < rest.Length && char.IsAsciiDigit(rest[k])) k++;
             if (k > 1 && (letter == "R" || FindPrefix(letter) is not null))
             {
-                string frac = rest[1..k];
-                mantissa = double.Parse(number + "." + frac, CultureInfo.InvariantCulture);
-                factor = letter == "R" ? 1.0 : FindPrefix(letter)!.Value;
-                rest = rest[k..];
-                return FinishUnit(text, rest, expectedUnit, mantissa * factor, out value, out error);
+                if (number.Contains('.'))
+                {
+                    error = new($"\"{text}\" is ambiguous: it has both a decimal point and \"{letter}\" as a decimal point",
+                        $"write either \"{number}{letter}\" or \"{number.Split('.')[0]}{letter}{rest[1..k]}\"");
+                    return false;
+                }
+                mantissa = double.Parse(number + "." + rest[1..k], CultureInfo.InvariantCulture);
+                double factor = letter == "R" ? 1.0 : FindPrefix(letter)!.Value;
+                return FinishUnit(text, rest[k..], expectedUnit, mantissa * factor, out value, out error);
             }
         }
 
@@ -96,26 +138,23 @@ public static class EngineeringValue
             return true;
         }
 
-        // Whole rest is a unit (e.g. "12V", "3Hz", "10lx") — try that before reading a prefix,
+        // Whole rest is a unit (e.g. "12V", "3Hz", "10lx", "2h") — try that before reading a prefix,
         // so that "2F" is farads, not femto.
-        if (IsUnit(rest, expectedUnit))
+        if (UnitFactor(rest, expectedUnit) is { } whole)
         {
-            value = mantissa;
+            value = mantissa * whole;
             return true;
         }
 
-        // "meg"/"Meg" is not accepted: it is ambiguous next to "m" = milli; say so.
-        if (rest.StartsWith("meg", StringComparison.OrdinalIgnoreCase))
+        if (expectedUnit is not null && FindPrefix(rest) is null && (KnownUnits.Contains(rest) || rest is "ohms" or "min" or "h"))
         {
-            error = $"\"{text}\": use \"M\" for mega (m is milli); write e.g. \"2.2M\"";
-            return false;
+            return FinishUnit(text, rest, expectedUnit, mantissa, out value, out error);
         }
 
         double? prefix = FindPrefix(rest[..1]);
         if (prefix is null)
         {
-            error = $"\"{text}\": unknown suffix \"{rest}\"; prefixes are T G M k m u µ n p f (m is milli, M is mega)"
-                + (expectedUnit is null ? "" : $", unit {expectedUnit}");
+            error = new($"\"{text}\": unknown suffix \"{rest}\"", $"prefixes are {PrefixList}" + UnitHint(expectedUnit));
             return false;
         }
         return FinishUnit(text, rest[1..], expectedUnit, mantissa * prefix.Value, out value, out error);
@@ -123,61 +162,99 @@ public static class EngineeringValue
 
     /// <summary>Parses or throws <see cref="FormatException"/> with the hint.</summary>
     public static double Parse(string text, string? expectedUnit = null)
-        => TryParse(text, expectedUnit, out double v, out string? e) ? v : throw new FormatException(e);
+        => TryParse(text, expectedUnit, out double v, out EngineeringValueError? e) ? v : throw new FormatException(e!.ToString());
 
-    /// <summary>Prints <paramref name="value"/> (SI) with an engineering prefix and the unit, e.g. 4700 → "4.7 kΩ".</summary>
+    /// <summary>Prints <paramref name="value"/> (SI) with an engineering prefix and the unit, e.g. 4700 → "4.7 kΩ".
+    /// Seconds of a minute or more print as "min" or "h" (5400 s → "1.5 h"); dimensionless values (unit "") and values
+    /// beyond the prefix table print plainly (0.05 → "0.05", 1e18 Ω → "1e+18 Ω").</summary>
     /// <param name="digits">Significant digits (default 4).</param>
     public static string Format(double value, string unit = "", int digits = 4)
     {
+        string unitPart = unit.Length > 0 ? " " + unit : "";
         if (double.IsNaN(value)) return "NaN";
-        if (double.IsInfinity(value)) return (value > 0 ? "∞" : "-∞") + (unit.Length > 0 ? " " + unit : "");
-        if (value == 0) return "0" + (unit.Length > 0 ? " " + unit : "");
+        if (double.IsInfinity(value)) return (value > 0 ? "∞" : "-∞") + unitPart;
+        if (value == 0) return "0" + unitPart;
         double abs = Math.Abs(value);
-        (string Symbol, double Factor)[] order =
-            [("T", 1e12), ("G", 1e9), ("M", 1e6), ("k", 1e3), ("", 1), ("m", 1e-3), ("µ", 1e-6), ("n", 1e-9), ("p", 1e-12), ("f", 1e-15)];
-        (string sym, double f) = order[^1];
-        foreach ((string Symbol, double Factor) p in order)
+        if (unit.Length == 0 || abs >= 999.95e12 || abs < 1e-15)
         {
-            if (abs >= p.Factor * 0.99995)
+            // Dimensionless values (fractions, ratios) and values beyond the prefix table print plainly.
+            return value.ToString("G" + digits, CultureInfo.InvariantCulture).Replace("E", "e", StringComparison.Ordinal) + unitPart;
+        }
+        if (unit == "s" && abs >= 59.9995)
+        {
+            // Long durations read better in minutes and hours than in kiloseconds (SI brochure, table 8).
+            return abs >= 3600
+                ? (value / 3600).ToString("G" + digits, CultureInfo.InvariantCulture) + " h"
+                : (value / 60).ToString("G" + digits, CultureInfo.InvariantCulture) + " min";
+        }
+        (string sym, double f) = s_printPrefixes[^1];
+        foreach ((string Symbol, double Factor) p in s_printPrefixes)
+        {
+            // Round first so 999.99 with 4 digits prints "1 k", not "1000".
+            double rounded = double.Parse((abs / p.Factor).ToString("G" + digits, CultureInfo.InvariantCulture), CultureInfo.InvariantCulture);
+            if (rounded >= 1)
             {
                 (sym, f) = p;
                 break;
             }
         }
-        double scaled = value / f;
-        string num = scaled.ToString("G" + digits, CultureInfo.InvariantCulture);
+        string num = (value / f).ToString("G" + digits, CultureInfo.InvariantCulture);
+        if (num.Contains('E')) num = value.ToString("G" + digits, CultureInfo.InvariantCulture);
         string suffix = sym + unit;
         return suffix.Length > 0 ? num + " " + suffix : num;
     }
 
-    private static bool FinishUnit(string text, string rest, string? expectedUnit, double v, out double value, out string? error)
+    private static string UnitHint(string? expectedUnit) => expectedUnit switch
+    {
+        null => "",
+        "" => "; this value has no unit (\"%\" is allowed)",
+        "s" => "; unit s (also min, h)",
+        _ => $"; unit {expectedUnit}",
+    };
+
+    private static bool FinishUnit(string text, string rest, string? expectedUnit, double v, out double value, out EngineeringValueError? error)
     {
         value = double.NaN;
         error = null;
-        if (rest.Length == 0 || IsUnit(rest, expectedUnit))
+        if (rest.Length == 0)
         {
             value = v;
             return true;
         }
-        error = expectedUnit is null
-            ? $"\"{text}\": unknown unit \"{rest}\""
-            : $"\"{text}\": unit \"{rest}\" does not fit; expected {expectedUnit}";
+        if (UnitFactor(rest, expectedUnit) is { } factor)
+        {
+            value = v * factor;
+            return true;
+        }
+        error = expectedUnit switch
+        {
+            null => new($"\"{text}\": unknown unit \"{rest}\"", "units are " + string.Join(" ", KnownUnits)),
+            "" => new($"\"{text}\": unit \"{rest}\" does not fit", "this value has no unit; write a plain number or a percentage"),
+            _ => new($"\"{text}\": unit \"{rest}\" does not fit", $"expected {expectedUnit}{(expectedUnit == "s" ? " (or min, h)" : "")}"),
+        };
         return false;
     }
 
-    private static bool IsUnit(string s, string? expectedUnit)
+    /// <summary>Scale factor of a unit suffix that fits <paramref name="expectedUnit"/>, or null when it does not.</summary>
+    private static double? UnitFactor(string s, string? expectedUnit)
     {
-        if (expectedUnit is not null)
+        if (s == "%") return expectedUnit is null or "" or "%" ? 0.01 : null;
+        if (expectedUnit is null)
         {
-            if (s == expectedUnit) return true;
-            bool ohms = expectedUnit is "Ω" or "Ohm" or "ohm";
-            return ohms && s is "Ω" or "Ohm" or "ohm" or "ohms" or "R";
+            foreach (string u in KnownUnits)
+            {
+                if (s == u) return 1.0;
+            }
+            return null;
         }
-        foreach (string u in KnownUnits)
+        if (s == expectedUnit) return 1.0;
+        return expectedUnit switch
         {
-            if (s == u) return true;
-        }
-        return false;
+            "Ω" or "Ohm" or "ohm" => s is "Ω" or "Ohm" or "ohm" or "ohms" or "R" ? 1.0 : null,
+            "°" or "deg" => s is "°" or "deg" ? 1.0 : null,
+            "s" => s switch { "min" => 60.0, "h" => 3600.0, _ => null },
+            _ => null,
+        };
     }
 
     private static double? FindPrefix(string symbol)

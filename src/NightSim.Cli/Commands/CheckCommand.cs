@@ -1,0 +1,125 @@
+using System.CommandLine;
+using System.Globalization;
+using System.Text.Json;
+using NightSim.Devices;
+using NightSim.Netlist;
+
+namespace NightSim.Cli.Commands;
+
+/// <summary>`nightsim check NETLIST [SCENARIO]`: validate a netlist (every problem at once) and print a summary.</summary>
+internal static class CheckCommand
+{
+    public static Command Create()
+    {
+        var netlist = new Argument<FileInfo?>("NETLIST")
+        {
+            Description = "Netlist JSON file to check.",
+            Arity = ArgumentArity.ZeroOrOne,
+        };
+        var scenario = new Argument<FileInfo?>("SCENARIO")
+        {
+            Description = "Scenario JSON file to check along with it (optional).",
+            Arity = ArgumentArity.ZeroOrOne,
+        };
+        var writeSchema = new Option<FileInfo?>("--write-schema")
+        {
+            HelpName = "FILE",
+            Description = "Write the netlist JSON Schema generated from the part catalogue to this file (e.g. netlists/netlist.schema.json).",
+        };
+        var writeKinds = new Option<FileInfo?>("--write-kinds")
+        {
+            HelpName = "FILE",
+            Description = "Write the part-kind reference (Markdown) generated from the part catalogue to this file (e.g. docs/part-kinds.md).",
+        };
+        var command = new Command("check", "Check a netlist (and optionally a scenario): print a summary, or every problem with file, line:column, JSON path and part. Exit 0 when valid, 2 when not.");
+        command.Arguments.Add(netlist);
+        command.Arguments.Add(scenario);
+        command.Options.Add(writeSchema);
+        command.Options.Add(writeKinds);
+        command.SetAction(pr => CliErrors.Run(pr, (output, error) =>
+            Execute(pr.GetValue(netlist), pr.GetValue(scenario), pr.GetValue(writeSchema), pr.GetValue(writeKinds), output, error)));
+        return command;
+    }
+
+    private static int Execute(FileInfo? netlist, FileInfo? scenario, FileInfo? writeSchema, FileInfo? writeKinds,
+        TextWriter output, TextWriter error)
+    {
+        if (writeSchema is not null || writeKinds is not null)
+        {
+            if (writeSchema is not null)
+            {
+                WriteAtomically(writeSchema.FullName, NetlistSchema.Generate());
+                output.WriteLine($"wrote {writeSchema}");
+            }
+            if (writeKinds is not null)
+            {
+                WriteAtomically(writeKinds.FullName, NetlistReference.Markdown());
+                output.WriteLine($"wrote {writeKinds}");
+            }
+            if (netlist is null) return CliErrors.Success;
+        }
+        if (netlist is null)
+        {
+            error.WriteLine("nightsim check: give a NETLIST file, e.g. `nightsim check netlists/rc-step.json` (see `nightsim check --help`)");
+            return CliErrors.Usage;
+        }
+
+        string netlistPath = netlist.ToString();
+        NetlistLoadResult result = NetlistLoader.Read(netlistPath);
+        var problems = new List<string>();
+        problems.AddRange(result.Errors.Select(e => e.ToString()));
+        if (scenario is not null) problems.AddRange(CheckScenario(scenario.ToString()));
+
+        foreach (NetlistError w in result.Warnings) error.WriteLine(w.ToString());
+        if (problems.Count > 0)
+        {
+            foreach (string p in problems) error.WriteLine(p);
+            error.WriteLine(problems.Count == 1 ? "1 error." : $"{problems.Count} errors.");
+            return CliErrors.InvalidInput;
+        }
+
+        NetlistDefinition def = result.Definition!;
+        output.WriteLine($"{def.Name}: valid ({netlistPath})");
+        if (!string.IsNullOrWhiteSpace(def.Description)) output.WriteLine($"  {def.Description}");
+        IEnumerable<string> byKind = def.Parts.GroupBy(p => p.Kind)
+            .OrderBy(g => PartCatalog.All.ToList().FindIndex(k => k.Name == g.Key))
+            .Select(g => $"{g.Key} {g.Count()}");
+        output.WriteLine($"  parts:    {def.Parts.Count} ({string.Join(", ", byKind)})");
+        List<string> nodes = def.Parts.SelectMany(p => p.Pins.Values).Where(n => n != "0").Distinct().Order(StringComparer.Ordinal).ToList();
+        output.WriteLine($"  nodes:    {nodes.Count} + ground ({string.Join(", ", nodes)})");
+        output.WriteLine(result.Warnings.Count == 0 ? "  warnings: none" : $"  warnings: {result.Warnings.Count} (above)");
+        if (scenario is not null) output.WriteLine($"  scenario: {scenario} (valid JSON)");
+        return CliErrors.Success;
+    }
+
+    private static IEnumerable<string> CheckScenario(string path)
+    {
+        if (!File.Exists(path)) return [$"{path}: error at $: file not found. hint: check the path"];
+        try
+        {
+            using JsonDocument _ = JsonDocument.Parse(File.ReadAllBytes(path), new JsonDocumentOptions
+            {
+                CommentHandling = JsonCommentHandling.Skip,
+                AllowTrailingCommas = true,
+            });
+            return [];
+        }
+        catch (JsonException ex)
+        {
+            string message = ex.Message;
+            int cut = message.IndexOf(" LineNumber:", StringComparison.Ordinal);
+            if (cut > 0) message = message[..cut];
+            string where = string.Create(CultureInfo.InvariantCulture, $"{(ex.LineNumber ?? 0) + 1}:{(ex.BytePositionInLine ?? 0) + 1}");
+            return [$"{path}:{where}: error at $: invalid JSON: {message.TrimEnd('.', ' ')}. hint: check brackets, quotes and commas near this position"];
+        }
+    }
+
+    /// <summary>Writes the whole text to a temporary file beside <paramref name="path"/>, then moves it into place,
+    /// so a failure never leaves a half-written file.</summary>
+    private static void WriteAtomically(string path, string text)
+    {
+        string temp = path + ".tmp";
+        File.WriteAllText(temp, text);
+        File.Move(temp, path, overwrite: true);
+    }
+}

@@ -1,0 +1,52 @@
+using NightSim.Netlist;
+
+namespace NightSim.Devices;
+
+/// <summary>A linear resistor between pins a and b: i = (v_a − v_b) / R.</summary>
+public sealed class Resistor : Device
+{
+    private int _a;
+    private int _b;
+    private PairSlots _slots;
+
+    /// <param name="resistance">Resistance in ohms (&gt; 0).</param>
+    public Resistor(string name, string partId, string nodeA, string nodeB, double resistance)
+        : base(name, partId, [nodeA, nodeB])
+    {
+        if (!(resistance > 0)) throw new ArgumentOutOfRangeException(nameof(resistance), resistance, "resistance must be > 0 Ω");
+        Resistance = resistance;
+    }
+
+    /// <summary>Netlist kind "resistor": nodes [a, b], value in ohms, optional tolerance (fraction, for spreads).</summary>
+    public static PartKind Kind { get; } = new()
+    {
+        Name = "resistor",
+        Description = "Linear resistor between two nodes.",
+        Pins = ["a", "b"],
+        UsesNodeList = true,
+        Parameters =
+        [
+            ParameterSpec.Number("value", "Ω", "Resistance, e.g. \"4k7\".") with { Required = true, Min = 1e-6, Max = 1e15 },
+            ParameterSpec.Number("tolerance", "", "Relative tolerance for spreads, e.g. \"5%\" or 0.05.") with { Default = 0.05, Min = 0, Max = 0.5 },
+        ],
+        Create = def => [new Resistor(def.Id, def.Id, def.Node("a"), def.Node("b"), def.Parameters.Number("value"))],
+        ConductsDc = true,
+    };
+
+    /// <summary>Resistance in ohms.</summary>
+    public double Resistance { get; }
+
+    public override void Setup(SetupContext setup)
+    {
+        _a = setup.Node(Nodes[0]);
+        _b = setup.Node(Nodes[1]);
+        _slots = setup.Pair(_a, _b);
+    }
+
+    public override void Load(LoadContext ctx)
+    {
+        double g = 1.0 / Resistance;
+        ctx.AddCurrent(_a, _b, g * (ctx.V(_a) - ctx.V(_b)));
+        _slots.Add(ctx.G, g);
+    }
+}

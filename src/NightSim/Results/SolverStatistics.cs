@@ -1,0 +1,45 @@
+namespace NightSim.Results;
+
+/// <summary>What the transient solver did in one run.</summary>
+public sealed class SolverStatistics
+{
+    /// <summary>Accepted time steps.</summary>
+    public long AcceptedSteps { get; internal set; }
+
+    /// <summary>Steps rejected by the error test or by a Newton failure.</summary>
+    public long RejectedSteps { get; internal set; }
+
+    /// <summary>Of the rejected steps, those rejected because Newton did not converge.</summary>
+    public long NewtonFailures { get; internal set; }
+
+    /// <summary>Newton iterations (one linear solve each).</summary>
+    public long NewtonIterations { get; internal set; }
+
+    /// <summary>Numeric LU factorisations.</summary>
+    public long Factorizations { get; internal set; }
+
+    /// <summary>Pivot-order choices (first analysis and re-pivots).</summary>
+    public long PivotAnalyses { get; internal set; }
+
+    /// <summary>Discrete events fired.</summary>
+    public long Events { get; internal set; }
+
+    /// <summary>Breakpoints landed on exactly.</summary>
+    public long Breakpoints { get; internal set; }
+
+    /// <summary>Smallest accepted step, seconds (0 when no step was taken).</summary>
+    public double MinStep { get; internal set; }
+
+    /// <summary>Largest accepted step, seconds.</summary>
+    public double MaxStep { get; internal set; }
+
+    /// <summary>Processor time spent in the run, seconds.</summary>
+    public double CpuSeconds { get; internal set; }
+
+    internal void NoteStep(double h)
+    {
+        AcceptedSteps++;
+        if (MinStep == 0 || h < MinStep) MinStep = h;
+        if (h > MaxStep) MaxStep = h;
+    }
+}
