@@ -13,7 +13,7 @@ internal static class Program
         var root = new RootCommand(
             "NightSim: simulate dusk-activated, time-limited lighting controllers through synthetic nights before you solder and mount them.");
 
-        // Verbs: one line each, in help order.
+        // Verbs: one `root.Subcommands.Add(XCommand.Create());` line each, in help order (check, sky, simulate, …).
         root.Subcommands.Add(CheckCommand.Create());
         root.Subcommands.Add(SimulateCommand.Create());
         root.Subcommands.Add(SkyCommand.Create());

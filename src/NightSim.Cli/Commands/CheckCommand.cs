@@ -94,10 +94,13 @@ internal static class CheckCommand
 
     private static IEnumerable<string> CheckScenario(string path)
     {
+        if (Directory.Exists(path)) return [$"{path}: error at $: this is a folder, not a scenario file. hint: check the path"];
         if (!File.Exists(path)) return [$"{path}: error at $: file not found. hint: check the path"];
         try
         {
-            using JsonDocument _ = JsonDocument.Parse(File.ReadAllBytes(path), new JsonDocumentOptions
+            byte[] bytes = File.ReadAllBytes(path);
+            int start = bytes.AsSpan().StartsWith((ReadOnlySpan<byte>)[0xEF, 0xBB, 0xBF]) ? 3 : 0;
+            using JsonDocument _ = JsonDocument.Parse(bytes.AsMemory(start), new JsonDocumentOptions
             {
                 CommentHandling = JsonCommentHandling.Skip,
                 AllowTrailingCommas = true,

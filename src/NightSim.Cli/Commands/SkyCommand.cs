@@ -134,6 +134,10 @@ internal static class SkyCommand
         {
             sb.AppendLine();
             sb.AppendLine($"Night of {e.Date.ToString("yyyy-MM-dd", ic)} ({e.Date.DayOfWeek.ToString()[..3]}), local noon to local noon");
+            var (noon, nextNoon) = Twilight.NightWindow(site, e.Date);
+            double hours = (nextNoon - noon).TotalHours;
+            if (Math.Abs(hours - 24) > 1e-9)
+                sb.AppendLine(string.Create(ic, $"  clocks change this night: {hours:G3} h from noon to noon (UTC{noon:zzz} → UTC{nextNoon:zzz})"));
             void Row(string label, DateTimeOffset? t) => sb.AppendLine($"  {label,-20} {Clock(e.Date, t)}");
             Row("sunset", e.Sunset);
             Row("civil dusk", e.CivilDusk);

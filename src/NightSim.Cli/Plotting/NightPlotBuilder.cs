@@ -54,12 +54,24 @@ public static class NightPlotBuilder
     {
         double span = data.To - data.From;
         if (!(span > 0)) throw new ArgumentException($"plot '{data.FileStem}': window end must be after its start");
+        foreach (PlotSeries s in data.Series)
+        {
+            if (s.Times.Length != s.Values.Length)
+                throw new ArgumentException($"plot '{data.FileStem}', series '{s.Title}': {s.Times.Length} times but {s.Values.Length} values");
+        }
 
         // Axis coordinate = seconds since local midnight of the origin's day, so major ticks fall on round clock times.
         DateTimeOffset originClock = ClockTime.At(data.Origin, data.TimeZone, 0);
         double shift = originClock.TimeOfDay.TotalSeconds;
-        double step = NiceStep(span);
-        string format = step >= 60 ? "HH:mm" : step >= 1 ? "HH:mm:ss" : step >= 0.1 ? "HH:mm:ss.f" : step >= 0.01 ? "HH:mm:ss.ff" : "HH:mm:ss.fff";
+        double step = NiceStep(span, 12);
+        string format = span > 30 * 3600 ? "MM-dd HH:mm"
+            : step >= 60 ? "HH:mm" : step >= 1 ? "HH:mm:ss" : step >= 0.1 ? "HH:mm:ss.f" : step >= 0.01 ? "HH:mm:ss.ff" : "HH:mm:ss.fff";
+        if (format.Length > 8)
+        {
+            // Long labels: fewer ticks so neighbours do not overprint.
+            step = NiceStep(span, 8);
+            if (span <= 30 * 3600) format = step >= 1 ? "HH:mm:ss" : step >= 0.1 ? "HH:mm:ss.f" : step >= 0.01 ? "HH:mm:ss.ff" : "HH:mm:ss.fff";
+        }
 
         var model = new PlotModel
         {
@@ -316,6 +328,7 @@ public static class NightPlotBuilder
                 CanTrackerInterpolatePoints = false,
             };
             bool light = panel == PlotPanel.Light;
+            line.Points.Capacity = b - a;
             for (int i = a; i < b; i++)
             {
                 double v = s.Values[i];
@@ -388,11 +401,11 @@ public static class NightPlotBuilder
         3600, 7200, 10800, 21600, 43200, 86400,
     ];
 
-    /// <summary>A round clock step giving about 8–12 labelled ticks over <paramref name="span"/> seconds.</summary>
-    private static double NiceStep(double span)
+    /// <summary>The smallest round clock step giving at most <paramref name="maxTicks"/> labelled ticks over <paramref name="span"/> seconds.</summary>
+    private static double NiceStep(double span, int maxTicks)
     {
         foreach (double step in s_steps)
-            if (span / step <= 12) return step;
+            if (span / step <= maxTicks) return step;
         return s_steps[^1];
     }
 }

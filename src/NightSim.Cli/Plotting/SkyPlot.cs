@@ -27,7 +27,7 @@ internal static class SkyPlot
         var model = new PlotModel
         {
             Title = string.Create(ic, $"Clear-sky illuminance, {site.Latitude:F2}° {(site.Latitude >= 0 ? "N" : "S")} {Math.Abs(site.Longitude):F2}° {(site.Longitude >= 0 ? "E" : "W")}, {site.TimeZone.Id}"),
-            Subtitle = string.Create(ic, $"nights of {first:yyyy-MM-dd}{(days > 1 ? $" to {first.AddDays(days - 1):yyyy-MM-dd}" : "")}; USNO Circular 171 model with 0.0005 lx night floor"),
+            Subtitle = string.Create(ic, $"{(days > 1 ? "nights" : "night")} of {first:yyyy-MM-dd}{(days > 1 ? $" to {first.AddDays(days - 1):yyyy-MM-dd}" : "")}; USNO Circular 171 model with 0.0005 lx night floor"),
             DefaultFont = "DejaVu Sans",
             Background = OxyColors.White,
             PlotAreaBorderColor = OxyColor.FromRgb(0x88, 0x88, 0x88),

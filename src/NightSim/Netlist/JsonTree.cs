@@ -61,6 +61,11 @@ internal sealed class JsonTree
     {
         error = null;
         if (utf8.StartsWith((ReadOnlySpan<byte>)[0xEF, 0xBB, 0xBF])) utf8 = utf8[3..];
+        if (utf8.TrimStart(" \t\r\n"u8).IsEmpty)
+        {
+            error = ("the file is empty", 1, 1);
+            return null;
+        }
         var positions = new PositionMap(utf8);
         var reader = new Utf8JsonReader(utf8, new JsonReaderOptions
         {

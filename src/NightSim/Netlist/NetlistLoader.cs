@@ -46,7 +46,9 @@ public static class NetlistLoader
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            string message = ex is FileNotFoundException or DirectoryNotFoundException ? "file not found" : "cannot read the file: " + ex.Message;
+            string message = Directory.Exists(path) ? "this is a folder, not a netlist file"
+                : ex is FileNotFoundException or DirectoryNotFoundException ? "file not found"
+                : "cannot read the file: " + ex.Message.TrimEnd('.');
             return new NetlistLoadResult(null, [new NetlistError(path, 0, 0, "$", null, message, "check the path")], []);
         }
         return ReadUtf8(bytes, path);
@@ -68,7 +70,9 @@ public static class NetlistLoader
         if (root is null)
         {
             (string message, int line, int column) = syntax!.Value;
-            session.Error(line, column, "$", null, message, "check brackets, quotes and commas near this position");
+            session.Error(line, column, "$", null, message, message == "the file is empty"
+                ? "write a netlist: { \"name\": \"my-circuit\", \"parts\": [ … ] }"
+                : "check brackets, quotes and commas near this position");
             return session.Result(null);
         }
         return session.Result(session.ReadNetlist(root));
@@ -383,15 +387,21 @@ public static class NetlistLoader
                 pins[p.Name] = n;
                 _nodeRefs.Add(new NodeRef(n, partId, index, pinPath, p.Value.Line, p.Value.Column));
             }
+            var missing = new List<string>();
             foreach (string pin in kind.Pins)
             {
                 if (pins.ContainsKey(pin)) continue;
                 // An optional pin left out stays absent: the kind decides what that means (a relay without that
                 // contact, a timer with its control pin inside). Inventing a node here would leave it floating.
                 if (kind.OptionalPins.Contains(pin)) continue;
-                if (!ok) continue;
-                Error(pinsProp.Value, path + ".pins", partId, $"missing pin \"{pin}\": a {kind.Name} has pins {pinList}",
-                    $"add \"{pin}\": \"<node>\"" + (kind.OptionalPins.Count > 0 ? $" (optional pins: {string.Join(", ", kind.OptionalPins)})" : ""));
+                missing.Add(pin);
+            }
+            if (missing.Count > 0)
+            {
+                Error(pinsProp.Value, path + ".pins", partId,
+                    $"missing {(missing.Count == 1 ? "pin" : "pins")} {string.Join(", ", missing.Select(m => "\"" + m + "\""))}: a {kind.Name} has pins {pinList}",
+                    $"add {string.Join(", ", missing.Select(m => $"\"{m}\": \"<node>\""))}"
+                        + (kind.OptionalPins.Count > 0 ? $" (optional pins: {string.Join(", ", kind.OptionalPins)})" : ""));
                 ok = false;
             }
             return ok ? pins : null;

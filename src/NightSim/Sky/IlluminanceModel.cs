@@ -34,6 +34,27 @@ public static class IlluminanceModel
         return e > 0 ? e : 0.0;
     }
 
+    /// <summary>
+    /// Moonlight on a horizontal surface, lux, by the same Circular 171 model: phase term
+    /// P = 0.892·exp(−3.343/tan(ε/2)^0.632) + 0.0344(sin ε − ε cos ε), P ← 0.418·P/(1 − 0.005 cos ε − 0.03 sin Z),
+    /// E = P·M(h − 0.95 cos h)/sky, with M the air-mass term of <see cref="SunLux"/> (SunLux = 133775·M).
+    /// </summary>
+    /// <param name="altitude">Geocentric altitude of the Moon, degrees.</param>
+    /// <param name="elongation">Elongation from the Sun, degrees (180 = full).</param>
+    /// <param name="skyFactor">Sky factor, as for the Sun.</param>
+    public static double MoonLux(double altitude, double elongation, double skyFactor = 1.0)
+    {
+        const double deg = Math.PI / 180.0;
+        double e = Math.Clamp(elongation, 1e-6, 180.0) * deg;
+        double z = altitude * deg;
+        double p = 0.892 * Math.Exp(-3.343 / Math.Pow(Math.Tan(e / 2), 0.632)) + 0.0344 * (Math.Sin(e) - e * Math.Cos(e));
+        p = 0.418 * p / (1 - 0.005 * Math.Cos(e) - 0.03 * Math.Sin(z));
+        double hm = altitude - 0.95 * Math.Cos(z);
+        // SunLux(h) = 133775·M(h) for sky 1, so M(h) = SunLux(h)/133775.
+        double lux = p * SunLux(hm, 1.0) / SolarTermLux / skyFactor;
+        return lux > 0 ? lux : 0.0;
+    }
+
     /// <summary>Sun plus the model's night floor (0.0005 lx / sky factor), lux. No Moon.</summary>
     public static double SkyLux(double elevation, double skyFactor = 1.0)
         => SunLux(elevation, skyFactor) + ClearNightFloorLux / skyFactor;

@@ -18,6 +18,7 @@ public sealed class LightProfile : ILightSignal
     private readonly double[] _elevation;
     private readonly double[] _logSunLux;
     private readonly bool[] _exactInterval;
+    private readonly double[]? _moonLux;
     private readonly double _gridStep;
     private readonly double _skyFactor;
     private readonly double _nightLux;
@@ -58,6 +59,16 @@ public sealed class LightProfile : ILightSignal
         for (int i = 0; i < n; i++)
             _exactInterval[i] = (_elevation[i] < IlluminanceModel.RefractionSwitchElevation) != (_elevation[i + 1] < IlluminanceModel.RefractionSwitchElevation);
         _nightLux = (IlluminanceModel.ClearNightFloorLux + w.MoonLux) / w.SkyFactor;
+        if (w.ModeledMoon)
+        {
+            // Moonlight on the same grid (USNO Circular 171 moonlight formula, Moon from MoonPosition), linear between points.
+            _moonLux = new double[n + 1];
+            for (int i = 0; i <= n; i++)
+            {
+                double jd = jd0 + i * _gridStep / 86400.0;
+                _moonLux[i] = IlluminanceModel.MoonLux(MoonPosition.Altitude(jd, site.Latitude, site.Longitude), MoonPosition.Elongation(jd), w.SkyFactor);
+            }
+        }
         _floorLux = w.FloorLux;
         _channelNames = [.. scenario.Channels.Select(c => c.Name)];
         _exposure = [.. scenario.Channels.Select(c => c.Exposure)];
@@ -194,8 +205,15 @@ public sealed class LightProfile : ILightSignal
                 ? IlluminanceModel.SunLux(_elevation[i] + f * (_elevation[i + 1] - _elevation[i]), _skyFactor)
                 : Math.Exp(_logSunLux[i] + f * (_logSunLux[i + 1] - _logSunLux[i]));
         }
+        double moon = 0.0;
+        if (_moonLux is not null)
+        {
+            double x = Math.Clamp(time, 0.0, Duration) / _gridStep;
+            int i = Math.Min((int)x, _moonLux.Length - 2);
+            moon = _moonLux[i] + (x - i) * (_moonLux[i + 1] - _moonLux[i]);
+        }
         double clouds = _clouds.Count == 0 ? 1.0 : _clouds.Product(time);
-        return (sun + _nightLux) * clouds;
+        return (sun + moon + _nightLux) * clouds;
     }
 
     /// <inheritdoc />

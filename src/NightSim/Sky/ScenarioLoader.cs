@@ -232,14 +232,16 @@ public static class ScenarioLoader
             double minutes = ctx.Number(c, "$.weather.clouds", "minutes", null, min: 0, minExclusive: true) ?? 10.0;
             if (perHour is not null) clouds = new CloudDefinition(perHour.Value, depth, minutes);
         }
-        double moon = 0.0;
+        bool modeledMoon = false;
         if (w.TryGetProperty("moon", out JsonElement m))
         {
-            if (m.ValueKind == JsonValueKind.True) moon = 0.2;
-            else if (m.ValueKind != JsonValueKind.False) ctx.Error("$.weather.moon", "expected true or false", "true = a high full Moon (0.2 lx); or give \"moonLux\"");
+            if (m.ValueKind == JsonValueKind.True) modeledMoon = true;
+            else if (m.ValueKind != JsonValueKind.False) ctx.Error("$.weather.moon", "expected true or false", "true = the real Moon for the site and dates; or give a constant \"moonLux\"");
         }
-        moon = ctx.Number(w, "$.weather", "moonLux", "lx", min: 0, max: 1) ?? moon;
+        double moon = ctx.Number(w, "$.weather", "moonLux", "lx", min: 0, max: 1) ?? 0.0;
+        if (modeledMoon && moon > 0)
+            ctx.Error("$.weather.moonLux", "give either \"moon\": true or a constant \"moonLux\", not both", "\"moon\": true computes the Moon's position and phase");
         double floor = ctx.Number(w, "$.weather", "floorLux", "lx", min: 0) ?? 0.0;
-        return new Weather(sky, clouds, moon, floor);
+        return new Weather(sky, clouds, moon, floor, modeledMoon);
     }
 }

@@ -229,4 +229,20 @@ public sealed class LightProfileTests
         Assert.True(sum > 0);
         Assert.Equal(0, after - before);
     }
+
+    [Fact]
+    public void SkyInterpolation_MatchesModel_AndKeepsTheStep()
+    {
+        LightScenario s = Parse("""{ "site": { "latitude": 52.1, "longitude": 8.6, "timeZone": "Europe/Berlin" }, "start": "2026-11-20" }""");
+        LightProfile p = s.CreateProfile();
+        for (double t = 3.3; t < p.Duration; t += 97.1)
+        {
+            double exact = IlluminanceModel.SkyLux(p.SunElevation(t));
+            Assert.InRange(p.SkyLux(t), exact * (1 - 1e-3), exact * (1 + 1e-3));
+        }
+        // USNO Circular 171 model step at −5/6° (check-values pitfall 9): a ≈ 34 % jump across the sunset breakpoint.
+        double sunset = (p.SolarEvents[0].Sunset!.Value - p.Origin).TotalSeconds;
+        double bp = p.NextBreakpoint(sunset - 60);
+        Assert.True(p.SkyLux(bp - 0.01) / p.SkyLux(bp + 0.01) > 1.3);
+    }
 }

@@ -49,9 +49,18 @@ public sealed class NightPlotBuilderTests
         PlotData zoom = DemoReportData.ZoomPlot();
         Axis x = XAxis(NightPlotBuilder.Build(zoom));
         Assert.Equal("23:41:07", x.LabelFormatter(DemoReportData.HeadlightAt + 12 * 3600));
-        PlotData narrow = zoom with { From = DemoReportData.HeadlightAt, To = DemoReportData.HeadlightAt + 0.05 };
+        PlotData narrow = zoom with { From = DemoReportData.HeadlightAt, To = DemoReportData.HeadlightAt + 0.035 }; // 5 ms ticks
         Axis xn = XAxis(NightPlotBuilder.Build(narrow));
         Assert.Equal("23:41:07.025", xn.LabelFormatter(DemoReportData.HeadlightAt + 0.025 + 12 * 3600));
+    }
+
+    [Fact]
+    public void MultiDayLabelsCarryTheDate()
+    {
+        PlotData data = DemoReportData.NightPlot() with { From = 0, To = 2.5 * 86400 };
+        Axis x = XAxis(NightPlotBuilder.Build(data));
+        Assert.Equal("11-21 00:00", x.LabelFormatter(86400));
+        Assert.True((x.Maximum - x.Minimum) / x.MajorStep <= 8);
     }
 
     [Fact]
