@@ -82,7 +82,7 @@ public static class TerminalReport
             table.AddRow("[grey]no nights[/]", "", "", "", "", "", "", "", "", "");
             return table;
         }
-        foreach (NightSummary n in nights)
+        foreach (NightSummary n in nights.Select(x => ReportText.Condensed(x, ReportText.TableRowsPerNight)))
         {
             int rows = Math.Max(1, n.LoadOn.Count);
             for (int i = 0; i < rows; i++)

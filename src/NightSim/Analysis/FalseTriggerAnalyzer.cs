@@ -6,16 +6,31 @@ namespace NightSim.Analysis;
 /// and the usual fix for that cause.</summary>
 public sealed class FalseTriggerAnalyzer : IResultAnalyzer
 {
+    /// <summary>False triggers of one cause stated one by one before the rest are summed up in one finding.</summary>
+    public const int ListedPerCause = 3;
+
     public IEnumerable<Finding> Analyze(RunFacts facts, IReadOnlyList<AttributedInterval> intervals, IReadOnlyList<NightSummary> nights)
     {
-        foreach (AttributedInterval iv in intervals)
+        foreach (IGrouping<LoadCause, AttributedInterval> group in intervals
+                     .Where(iv => !iv.Expected && iv.Cause is not (LoadCause.PowerUp or LoadCause.Dusk))
+                     .GroupBy(iv => iv.Cause))
         {
-            if (iv.Expected || iv.Cause is LoadCause.PowerUp or LoadCause.Dusk) continue;
-            string on = ReportText.Clock(facts.Clock(iv.Start));
-            string lasted = iv.End is double e ? "for " + ReportText.Duration(e - iv.Start) : "until the end of the run";
-            string cause = ReportText.Cause(iv.Cause);
-            string message = $"At {on} the lamp switched on again {lasted}: {iv.Explanation}.";
-            yield return new Finding(Severity.Warning, "false-trigger-" + cause, message, Fix(iv.Cause), facts.Clock(iv.Start));
+            string cause = ReportText.Cause(group.Key);
+            var all = group.ToList();
+            foreach (AttributedInterval iv in all.Take(ListedPerCause))
+            {
+                string on = ReportText.Clock(facts.Clock(iv.Start));
+                string lasted = iv.End is double e ? "for " + ReportText.Duration(e - iv.Start) : "until the end of the run";
+                string message = $"At {on} the lamp switched on again {lasted}: {iv.Explanation}.";
+                yield return new Finding(Severity.Warning, "false-trigger-" + cause, message, Fix(group.Key), facts.Clock(iv.Start));
+            }
+            if (all.Count > ListedPerCause)
+            {
+                AttributedInterval first = all[ListedPerCause], last = all[^1];
+                yield return new Finding(Severity.Warning, "false-trigger-" + cause,
+                    $"{all.Count - ListedPerCause} more switch-ons caused by {cause} between {ReportText.Clock(facts.Clock(first.Start))} and {ReportText.Clock(facts.Clock(last.Start))} ({all.Count} in all).",
+                    Fix(group.Key), facts.Clock(first.Start));
+            }
         }
     }
 

@@ -38,10 +38,10 @@ public static class NightAnalysis
     }
 
     /// <summary>Start times (run seconds) of chatter bursts among relay transitions in [from, to).</summary>
-    public static List<(double Start, int Operations)> ChatterBursts(RunFacts facts, double from, double to)
+    public static List<(double Start, double End, int Operations)> ChatterBursts(RunFacts facts, double from, double to)
     {
         double[] times = facts.LoadTransitions.Where(t => t.Time >= from && t.Time < to).Select(t => t.Time).Order().ToArray();
-        var bursts = new List<(double, int)>();
+        var bursts = new List<(double, double, int)>();
         int i = 0;
         while (i < times.Length)
         {
@@ -52,7 +52,7 @@ public static class NightAnalysis
             int count = j - i + 1;
             if (count >= ChatterOperations)
             {
-                bursts.Add((times[i], count));
+                bursts.Add((times[i], times[j], count));
                 i = j + 1;
             }
             else

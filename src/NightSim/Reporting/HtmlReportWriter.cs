@@ -98,7 +98,7 @@ public static class HtmlReportWriter
         h.Append("<section id=\"nights\">\n<h2>Nights</h2>\n<div class=\"scroll\">\n<table class=\"nights\">\n<thead>\n<tr>");
         foreach (string head in s_nightHeads) h.Append("<th scope=\"col\">").Append(Esc(head)).Append("</th>");
         h.Append("</tr>\n</thead>\n");
-        foreach (NightSummary n in nights)
+        foreach (NightSummary n in nights.Select(x => ReportText.Condensed(x, 3 * ReportText.TableRowsPerNight)))
         {
             int rows = Math.Max(1, n.LoadOn.Count);
             string span = rows > 1 ? " rowspan=\"" + rows.ToString(s_inv) + "\"" : "";

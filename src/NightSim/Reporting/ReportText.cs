@@ -53,4 +53,24 @@ public static class ReportText
         "Build it into a closed, insulating enclosure; never touch or adjust it while connected; switch mains loads only with contacts rated for them.",
         "NightSim is not a safety assessment. Follow your local electrical codes, and have mains wiring done or checked by a licensed electrician.",
     ];
+
+    /// <summary>
+    /// The night as tables show it: at most <paramref name="maxRows"/> on-intervals, the rest folded into one row that
+    /// says how many more there were (a chattering relay gives thousands; report.json keeps them all).
+    /// </summary>
+    public static NightSummary Condensed(NightSummary night, int maxRows)
+    {
+        if (night.LoadOn.Count <= maxRows || maxRows < 2) return night;
+        var shown = night.LoadOn.Take(maxRows - 1).ToList();
+        var rest = night.LoadOn.Skip(maxRows - 1).ToList();
+        LoadCause common = rest.GroupBy(i => i.Cause).OrderByDescending(g => g.Count()).First().Key;
+        LoadInterval last = rest[^1];
+        shown.Add(new LoadInterval(rest[0].Start, last.End, rest.Sum(i => i.DurationSeconds), common, rest.Any(i => i.Expected),
+            $"… and {rest.Count} more switch-ons until {Clock(last.Start)}, mostly {Cause(common)} (every one is in report.json)",
+            last.EndedBy));
+        return night with { LoadOn = shown };
+    }
+
+    /// <summary>Rows of on-intervals a table shows per night before folding the rest.</summary>
+    public const int TableRowsPerNight = 12;
 }

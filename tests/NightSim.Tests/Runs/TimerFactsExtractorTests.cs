@@ -1,4 +1,5 @@
 using NightSim.Analysis;
+using NightSim.Devices;
 using NightSim.Netlist;
 using NightSim.Runs;
 
@@ -7,7 +8,7 @@ namespace NightSim.Tests.Runs;
 public class TimerFactsExtractorTests
 {
     private static PartDefinition Two(string id, string kind, string a, string b, params (string Name, double Value)[] p) =>
-        new(id, kind, new Dictionary<string, string> { ["p"] = a, ["n"] = b },
+        new(id, kind, new Dictionary<string, string> { [PartCatalog.Find(kind)!.Pins[0]] = a, [PartCatalog.Find(kind)!.Pins[1]] = b },
             new PartParameters(p.ToDictionary(x => x.Name, x => x.Value)));
 
     // The worked case of check-values §7: 1 MΩ from 12 V, 100 µF with 1 µA leakage → 129.93 s ([CALC], textbook
