@@ -32,7 +32,7 @@ public class DemoOutputTests
             var schema = JsonSchema.FromText(File.ReadAllText(Path.Combine(RepoPaths.Root, "docs", "report.schema.json")));
             using JsonDocument report = JsonDocument.Parse(File.ReadAllText(Path.Combine(dir, "report.json")));
             EvaluationResults result = schema.Evaluate(report.RootElement, new EvaluationOptions { OutputFormat = OutputFormat.List });
-            Assert.True(result.IsValid, string.Join("; ", result.Details.Where(d => d.Errors is not null).SelectMany(d => d.Errors!.Select(e => $"{d.InstanceLocation}: {e.Value}"))));
+            Assert.True(result.IsValid, string.Join("; ", (result.Details ?? []).Where(d => d.Errors is not null).SelectMany(d => d.Errors!.Select(e => $"{d.InstanceLocation}: {e.Value}"))));
             Assert.Equal("headlight", report.RootElement.GetProperty("nights")[0].GetProperty("loadOn")[1].GetProperty("cause").GetString());
 
             // Night plot and zooms, SVG and PNG.
