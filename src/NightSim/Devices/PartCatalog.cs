@@ -20,6 +20,13 @@ public static class PartCatalog
         Zener.Kind,
         Bjt.NpnKind,
         Bjt.PnpKind,
+        Comparator.Kind,
+        SrLatch.Kind,
+        Composite.Timer555.Kind,
+        Relay.Kind,
+        Light.Photoresistor.Kind,
+        Light.Photodiode.Kind,
+        Light.Phototransistor.Kind,
     ];
 
     private static readonly Dictionary<string, PartKind> s_byName = s_kinds.ToDictionary(k => k.Name, StringComparer.Ordinal);
