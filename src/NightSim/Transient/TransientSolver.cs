@@ -35,6 +35,8 @@ public sealed partial class TransientSolver
     private readonly int _n;
     private readonly int[] _slotRow;
     private readonly double[] _matrix;
+    private readonly double[] _factored;
+    private bool _factorValid;
 
     // State at the last accepted point t_n.
     private readonly double[] _x;
@@ -106,6 +108,7 @@ public sealed partial class TransientSolver
         };
         _solver = _options.SparseSolver ? new SparseLuSolver(circuit.Pattern) : new DenseLuSolver(circuit.Pattern);
         _matrix = new double[slots];
+        _factored = new double[slots];
         _x = new double[_n];
         _q = new double[_n];
         _qd = new double[_n];
@@ -263,8 +266,17 @@ public sealed partial class TransientSolver
                 _rejectedLast = true;
                 _h = h / (_failuresHere > 1 ? 8.0 : 4.0);
                 if (_failuresHere >= 2) _needRestart = true; // two failures at this point: fall back to BE
+                if (_h < hMin && _opGmin == 0)
+                {
+                    // Last resort before giving up: a temporary 1e-9 S shunt on every node for this step (numerics.md §6).
+                    _opGmin = 1e-9;
+                    _h = Math.Max(hMin, _options.RestartStep);
+                    _failuresHere = 0;
+                    continue;
+                }
                 if (_h < hMin)
                 {
+                    _opGmin = 0;
                     _failure = new SimulationFailure(t, "Newton iteration did not converge even at the smallest step", WorstUnknowns(),
                         "try a looser tolerance, add series resistance to ideal sources and switches, or check the worst nodes for floating parts");
                     return false;
@@ -315,6 +327,7 @@ public sealed partial class TransientSolver
                 }
             }
 
+            _opGmin = 0; // a temporary shunt lasts one accepted step
             Commit(t, h, landing ? bp : double.NaN, restart);
             if (fired)
             {
@@ -563,7 +576,14 @@ public sealed partial class TransientSolver
             for (int i = 0; i < n; i++) rhs[i] = -(alpha * q[i] + j[i] - hist[i]);
             for (int s = 0; s < _matrix.Length; s++) _matrix[s] = alpha * c[s] + g[s];
             _stats.NewtonIterations++;
-            if (!_solver.Factor(_matrix)) return false;
+            // Reuse the factorisation when the matrix is bit-for-bit the one factored last (linear parts at constant h).
+            if (!_factorValid || !_matrix.AsSpan().SequenceEqual(_factored))
+            {
+                _factorValid = false;
+                if (!_solver.Factor(_matrix)) return false;
+                Array.Copy(_matrix, _factored, _matrix.Length);
+                _factorValid = true;
+            }
             _solver.Solve(rhs);
             bool converged = !_ctx.Limited;
             for (int i = 0; i < n; i++)
