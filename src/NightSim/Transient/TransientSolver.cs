@@ -34,6 +34,8 @@ public sealed partial class TransientSolver
     private readonly ILinearSolver _solver;
     private readonly int _n;
     private readonly int[] _slotRow;
+    private readonly int[] _slotCol;
+    private readonly double[] _allowed;
     private readonly double[] _matrix;
     private readonly double[] _factored;
     private bool _factorValid;
@@ -100,6 +102,8 @@ public sealed partial class TransientSolver
         _n = circuit.Size;
         int slots = circuit.Pattern.Count;
         _slotRow = [.. circuit.Pattern.Rows];
+        _slotCol = [.. circuit.Pattern.Cols];
+        _allowed = new double[_n];
         _ctx = new LoadContext(_n, slots)
         {
             Light = _light,
@@ -575,6 +579,7 @@ public sealed partial class TransientSolver
             double[] q = _ctx.Q, j = _ctx.J, g = _ctx.G, c = _ctx.C;
             for (int i = 0; i < n; i++) rhs[i] = -(alpha * q[i] + j[i] - hist[i]);
             for (int s = 0; s < _matrix.Length; s++) _matrix[s] = alpha * c[s] + g[s];
+            if (it > 0 && !_ctx.Limited && ResidualNegligible(x, rel)) return true; // Q and J are already at x
             _stats.NewtonIterations++;
             // Reuse the factorisation when the matrix is bit-for-bit the one factored last (linear parts at constant h).
             if (!_factorValid || !_matrix.AsSpan().SequenceEqual(_factored))
@@ -603,6 +608,28 @@ public sealed partial class TransientSolver
             }
         }
         return false;
+    }
+
+    /// <summary>
+    /// True when the residual (in _rhs) is so small that the Newton correction it implies is far below tolerance:
+    /// every |F_i| ≤ 0.01·Σ_j |M_ij|·(0.1·rtol·|x_j| + 0.1·atol_j). A linear circuit then stops after one solve
+    /// instead of solving again only to see a zero correction.
+    /// </summary>
+    private bool ResidualNegligible(double[] x, double rel)
+    {
+        double[] allowed = _allowed;
+        Array.Clear(allowed);
+        for (int s = 0; s < _matrix.Length; s++)
+        {
+            int col = _slotCol[s];
+            allowed[_slotRow[s]] += Math.Abs(_matrix[s]) * (rel * Math.Abs(x[col]) + _newtonAtol[col]);
+        }
+        for (int i = 0; i < _n; i++)
+        {
+            double r = _rhs[i];
+            if (!(Math.Abs(r) <= 0.01 * allowed[i])) return false;
+        }
+        return true;
     }
 
     /// <summary>Clear and load every device at <paramref name="x"/> (copied into the context when different).</summary>
