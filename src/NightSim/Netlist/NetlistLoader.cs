@@ -109,7 +109,7 @@ public static class NetlistLoader
             {
                 if (!s_topLevelKeys.Contains(p.Name))
                 {
-                    UnknownKey(p, "$." + p.Name, null, s_topLevelKeys, "top-level key");
+                    UnknownKey(p, "$." + p.Name, null, s_topLevelKeys, "unknown top-level key {0}");
                 }
             }
             DuplicateKeys(root, "$", null);
@@ -235,7 +235,7 @@ public static class NetlistLoader
 
             Dictionary<string, string>? pins = ReadPins(node, path, partId, index, kind);
             var reserved = new HashSet<string>(StringComparer.Ordinal) { "id", "kind", "nodes", "pins" };
-            PartParameters? parameters = ReadParameters(kind.Parameters, node, path, partId, reserved, kind.Name);
+            PartParameters? parameters = ReadParameters(kind.Parameters, node, path, partId, reserved, "a " + kind.Name);
             if (pins is null || parameters is null || id is null) return (null, kind);
 
             var location = new SourceLocation(file, path, node.Line, node.Column);
@@ -418,7 +418,7 @@ public static class NetlistLoader
         {
             List<string> names = valid.ToList();
             string? near = NearestName.Find(p.Name, names);
-            Error(p.Line, p.Column, path, partId, $"unknown {what} \"{p.Name}\"",
+            Error(p.Line, p.Column, path, partId, string.Format(CultureInfo.InvariantCulture, what, "\"" + p.Name + "\""),
                 (near is null ? "" : $"did you mean \"{near}\"? ") + "valid: " + string.Join(", ", names));
         }
 
@@ -440,7 +440,7 @@ public static class NetlistLoader
                 ParameterSpec? spec = specs.FirstOrDefault(s => s.Name == p.Name);
                 if (spec is null)
                 {
-                    UnknownKey(p, valuePath, partId, specs.Select(s => s.Name), $"parameter of {owner}");
+                    UnknownKey(p, valuePath, partId, specs.Select(s => s.Name), $"unknown parameter {{0}} for {owner}");
                     continue;
                 }
                 given.TryAdd(p.Name, p);
@@ -502,7 +502,7 @@ public static class NetlistLoader
                 if (spec.Required)
                 {
                     string unit = spec.Unit.Length > 0 ? $" ({spec.Unit})" : "";
-                    Error(obj, path, partId, $"missing required parameter \"{spec.Name}\"{unit}", $"{spec.Description}");
+                    Error(obj, path, partId, $"missing required parameter \"{spec.Name}\"{unit}", $"add \"{spec.Name}\": {Explain(spec)}");
                     continue;
                 }
                 if (spec.ExclusiveGroup is not null) continue;
@@ -553,10 +553,19 @@ public static class NetlistLoader
             if (spec is not null && (value < spec.Min || value > spec.Max || double.IsNaN(value)))
             {
                 Error(v, path, partId, $"{label} = {EngineeringValue.Format(value, unit)} is outside its physical range {RangeText(spec)}",
-                    spec.Description.TrimEnd('.'));
+                    $"\"{spec.Name}\" is {Explain(spec)}");
                 return null;
             }
             return value;
+        }
+
+        /// <summary>The spec's description as a phrase: "the resistance, e.g. \"4k7\"".</summary>
+        private static string Explain(ParameterSpec spec)
+        {
+            string d = spec.Description.TrimEnd('.');
+            if (d.Length == 0) return spec.Name;
+            bool acronym = d.Length > 1 && char.IsUpper(d[1]);
+            return "the " + (acronym ? d : char.ToLowerInvariant(d[0]) + d[1..]);
         }
 
         private static string RangeText(ParameterSpec spec)
@@ -635,7 +644,7 @@ public static class NetlistLoader
                 if (refs.Count == 1)
                 {
                     NodeRef r = refs[0];
-                    string? near = NearestName.Find(node, publicNodes.Where(n => n != node && byNode[n].Count > 1));
+                    string? near = NearestName.Find(node, publicNodes.Where(n => n != node));
                     Error(r.Line, r.Column, r.Path, r.PartId, $"node \"{node}\" has a single connection",
                         near is not null ? $"did you mean \"{near}\"? every node needs at least two connections" : "connect it to another part, or check the spelling");
                 }

@@ -56,6 +56,7 @@ public sealed partial class TransientSolver
     private readonly double[] _atol;
     private readonly double[] _newtonAtol;
     private readonly bool[] _inNorm;
+    private readonly bool[] _rowHasCharge;
     private readonly double[] _lastDelta;
 
     // Events, flattened over (source, index).
@@ -122,6 +123,7 @@ public sealed partial class TransientSolver
         _atol = new double[_n];
         _newtonAtol = new double[_n];
         _inNorm = new bool[_n];
+        _rowHasCharge = new bool[_n];
         _lastDelta = new double[_n];
 
         var sources = new List<IEventSource>();
@@ -217,6 +219,7 @@ public sealed partial class TransientSolver
         Array.Copy(_ctx.Q, _q, _n);
         for (int i = 0; i < _n; i++) _qd[i] = -_ctx.J[i];
         SetTolerances();
+        if (_options.Start == StartMode.PowerUp) _needRestart = !AlgebraicRowsSatisfied();
         RecordPoint();
         EvaluateEvents(_x, 0.0, _gNew, _gOld);
         Array.Copy(_gNew, _gOld, _gOld.Length);
@@ -617,7 +620,7 @@ public sealed partial class TransientSolver
     private void SetTolerances()
     {
         // A branch row is a state (inductor current) when some ∂q/∂x entry of the row is nonzero.
-        var rowHasCharge = new bool[_n];
+        var rowHasCharge = _rowHasCharge;
         for (int s = 0; s < _slotRow.Length; s++)
             if (_ctx.C[s] != 0.0) rowHasCharge[_slotRow[s]] = true;
         for (int i = 0; i < _n; i++)
@@ -627,6 +630,15 @@ public sealed partial class TransientSolver
             _inNorm[i] = !branch || rowHasCharge[i];
             _newtonAtol[i] = 0.1 * _atol[i];
         }
+    }
+
+    /// <summary>True when the start state satisfies every row without charge exactly (a consistent initial state:
+    /// then TR-BDF2 can start at once; otherwise a backward-Euler step first settles the algebraic unknowns).</summary>
+    private bool AlgebraicRowsSatisfied()
+    {
+        for (int i = 0; i < _n; i++)
+            if (!_rowHasCharge[i] && Math.Abs(_ctx.J[i]) > 1e-15) return false;
+        return true;
     }
 
     /// <summary>Max norm of the filtered estimate over state unknowns, weighted by rtol·|x| + atol.</summary>

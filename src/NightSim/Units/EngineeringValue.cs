@@ -164,7 +164,8 @@ public static class EngineeringValue
     public static double Parse(string text, string? expectedUnit = null)
         => TryParse(text, expectedUnit, out double v, out EngineeringValueError? e) ? v : throw new FormatException(e!.ToString());
 
-    /// <summary>Prints <paramref name="value"/> (SI) with an engineering prefix and the unit, e.g. 4700 → "4.7 kΩ".</summary>
+    /// <summary>Prints <paramref name="value"/> (SI) with an engineering prefix and the unit, e.g. 4700 → "4.7 kΩ".
+    /// Seconds of a minute or more print as "min" or "h" (5400 s → "1.5 h").</summary>
     /// <param name="digits">Significant digits (default 4).</param>
     public static string Format(double value, string unit = "", int digits = 4)
     {
@@ -173,6 +174,13 @@ public static class EngineeringValue
         if (double.IsInfinity(value)) return (value > 0 ? "∞" : "-∞") + unitPart;
         if (value == 0) return "0" + unitPart;
         double abs = Math.Abs(value);
+        if (unit == "s" && abs >= 59.9995)
+        {
+            // Long durations read better in minutes and hours than in kiloseconds (SI brochure, table 8).
+            return abs >= 3600
+                ? (value / 3600).ToString("G" + digits, CultureInfo.InvariantCulture) + " h"
+                : (value / 60).ToString("G" + digits, CultureInfo.InvariantCulture) + " min";
+        }
         (string sym, double f) = s_printPrefixes[^1];
         foreach ((string Symbol, double Factor) p in s_printPrefixes)
         {

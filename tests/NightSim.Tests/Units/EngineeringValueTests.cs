@@ -95,6 +95,9 @@ public sealed class EngineeringValueTests
     [InlineData(0, "V", "0 V")]
     [InlineData(999.99, "Ω", "1 kΩ")]
     [InlineData(-3.3e-9, "F", "-3.3 nF")]
+    [InlineData(5400, "s", "1.5 h")]         // 1 h = 3600 s (SI brochure, table 8)
+    [InlineData(90, "s", "1.5 min")]
+    [InlineData(0.02, "s", "20 ms")]
     public void Format_Picks_The_Prefix(double value, string unit, string expected) =>
         Assert.Equal(expected, EngineeringValue.Format(value, unit));
 
