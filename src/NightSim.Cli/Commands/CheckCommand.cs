@@ -26,21 +26,36 @@ internal static class CheckCommand
             HelpName = "FILE",
             Description = "Write the netlist JSON Schema generated from the part catalogue to this file (e.g. netlists/netlist.schema.json).",
         };
+        var writeKinds = new Option<FileInfo?>("--write-kinds")
+        {
+            HelpName = "FILE",
+            Description = "Write the part-kind reference (Markdown) generated from the part catalogue to this file (e.g. docs/part-kinds.md).",
+        };
         var command = new Command("check", "Check a netlist (and optionally a scenario): print a summary, or every problem with file, line:column, JSON path and part. Exit 0 when valid, 2 when not.");
         command.Arguments.Add(netlist);
         command.Arguments.Add(scenario);
         command.Options.Add(writeSchema);
+        command.Options.Add(writeKinds);
         command.SetAction(pr => CliErrors.Run(pr, (output, error) =>
-            Execute(pr.GetValue(netlist), pr.GetValue(scenario), pr.GetValue(writeSchema), output, error)));
+            Execute(pr.GetValue(netlist), pr.GetValue(scenario), pr.GetValue(writeSchema), pr.GetValue(writeKinds), output, error)));
         return command;
     }
 
-    private static int Execute(FileInfo? netlist, FileInfo? scenario, FileInfo? writeSchema, TextWriter output, TextWriter error)
+    private static int Execute(FileInfo? netlist, FileInfo? scenario, FileInfo? writeSchema, FileInfo? writeKinds,
+        TextWriter output, TextWriter error)
     {
-        if (writeSchema is not null)
+        if (writeSchema is not null || writeKinds is not null)
         {
-            WriteAtomically(writeSchema.FullName, NetlistSchema.Generate());
-            output.WriteLine($"wrote {writeSchema}");
+            if (writeSchema is not null)
+            {
+                WriteAtomically(writeSchema.FullName, NetlistSchema.Generate());
+                output.WriteLine($"wrote {writeSchema}");
+            }
+            if (writeKinds is not null)
+            {
+                WriteAtomically(writeKinds.FullName, NetlistReference.Markdown());
+                output.WriteLine($"wrote {writeKinds}");
+            }
             if (netlist is null) return CliErrors.Success;
         }
         if (netlist is null)

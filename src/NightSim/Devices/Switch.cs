@@ -1,5 +1,6 @@
 using System.Globalization;
 using NightSim.Netlist;
+using NightSim.Units;
 
 namespace NightSim.Devices;
 
@@ -140,7 +141,7 @@ public sealed class Switch : Device, IEventSource
         if (!(off > on))
         {
             yield return string.Create(CultureInfo.InvariantCulture,
-                $"offResistance ({off} Ω) must be larger than onResistance ({on} Ω). hint: typical values are onResistance \"10m\" and offResistance \"1G\"");
+                $"offResistance ({EngineeringValue.Format(off, "Ω")}) must be larger than onResistance ({EngineeringValue.Format(on, "Ω")}). hint: typical values are onResistance \"10m\" and offResistance \"1G\"");
         }
         if (def.Parameters.Points("schedule") is { } schedule)
         {

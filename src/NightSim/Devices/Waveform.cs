@@ -1,4 +1,5 @@
 using NightSim.Netlist;
+using NightSim.Units;
 
 namespace NightSim.Devices;
 
@@ -52,7 +53,9 @@ public sealed class Waveform
         if (!(width >= 0)) throw new ArgumentOutOfRangeException(nameof(width), width, "pulse width must be ≥ 0 s");
         if (!(period > 0)) throw new ArgumentOutOfRangeException(nameof(period), period, "pulse period must be > 0 s");
         if (!double.IsPositiveInfinity(period) && rise + width + fall > period)
-            throw new ArgumentException($"pulse rise + width + fall ({rise + width + fall} s) exceeds its period ({period} s)", nameof(period));
+            throw new ArgumentException(
+                $"pulse rise + width + fall ({EngineeringValue.Format(rise + width + fall, "s")}) exceeds its period ({EngineeringValue.Format(period, "s")}). hint: shorten \"width\" or lengthen \"period\"",
+                nameof(period));
         return new(WaveformShape.Pulse, [delay, rise, width, fall, period], [v1, v2]);
     }
 
@@ -75,7 +78,9 @@ public sealed class Waveform
             t[i] = points[i].X;
             v[i] = points[i].Y;
             if (i > 0 && !(t[i] > t[i - 1]))
-                throw new ArgumentException($"piecewise-linear times must increase strictly (point {i}: {t[i]} s after {t[i - 1]} s)", nameof(points));
+                throw new ArgumentException(
+                    $"piecewise-linear times must increase strictly (point {i}: {EngineeringValue.Format(t[i], "s")} after {EngineeringValue.Format(t[i - 1], "s")})",
+                    nameof(points));
         }
         return new(WaveformShape.PiecewiseLinear, t, v);
     }
@@ -107,6 +112,8 @@ public sealed class Waveform
         PartParameters p = part.Parameters;
         if (!p.Has("dc") && !p.Has("pulse") && !p.Has("sine") && !p.Has("pwl"))
             yield return "no waveform given. hint: add one of \"dc\": \"12V\", \"pulse\": { … }, \"sine\": { … } or \"pwl\": [[t, v], …]";
+        if (p.Object("pulse") is { } pulse && pulse.Has("period") && !pulse.Has("width"))
+            yield return "a repeating pulse needs \"width\". hint: add \"width\" (time at v2), shorter than \"period\" minus the ramps";
     }
 
     /// <summary>Builds the waveform from validated part parameters (one of dc, pulse, sine, pwl; none = dc 0).</summary>

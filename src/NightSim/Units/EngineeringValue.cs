@@ -165,7 +165,8 @@ public static class EngineeringValue
         => TryParse(text, expectedUnit, out double v, out EngineeringValueError? e) ? v : throw new FormatException(e!.ToString());
 
     /// <summary>Prints <paramref name="value"/> (SI) with an engineering prefix and the unit, e.g. 4700 → "4.7 kΩ".
-    /// Seconds of a minute or more print as "min" or "h" (5400 s → "1.5 h").</summary>
+    /// Seconds of a minute or more print as "min" or "h" (5400 s → "1.5 h"); dimensionless values (unit "") and values
+    /// beyond the prefix table print plainly (0.05 → "0.05", 1e18 Ω → "1e+18 Ω").</summary>
     /// <param name="digits">Significant digits (default 4).</param>
     public static string Format(double value, string unit = "", int digits = 4)
     {
@@ -174,6 +175,11 @@ public static class EngineeringValue
         if (double.IsInfinity(value)) return (value > 0 ? "∞" : "-∞") + unitPart;
         if (value == 0) return "0" + unitPart;
         double abs = Math.Abs(value);
+        if (unit.Length == 0 || abs >= 999.95e12 || abs < 1e-15)
+        {
+            // Dimensionless values (fractions, ratios) and values beyond the prefix table print plainly.
+            return value.ToString("G" + digits, CultureInfo.InvariantCulture).Replace("E", "e", StringComparison.Ordinal) + unitPart;
+        }
         if (unit == "s" && abs >= 59.9995)
         {
             // Long durations read better in minutes and hours than in kiloseconds (SI brochure, table 8).

@@ -111,8 +111,36 @@ public sealed class NetlistLoaderTests
         NetlistLoadResult result = NetlistLoader.ReadText(json, "t.json");
         Assert.Equal(2, result.Errors.Count);
         Assert.Contains("no waveform given", result.Errors[0].Message, StringComparison.Ordinal);
-        Assert.Contains("offResistance (1 Ω) must be larger", result.Errors[1].Message, StringComparison.Ordinal);
+        Assert.Contains("offResistance (1 Ω) must be larger than onResistance (10 Ω)", result.Errors[1].Message, StringComparison.Ordinal);
         Assert.NotNull(result.Errors[1].Hint);
+    }
+
+    [Fact]
+    public void Pulse_Parameters_Are_Checked_Against_Each_Other()
+    {
+        const string json = """
+            { "name": "t", "parts": [
+              { "id": "V1", "kind": "voltage-source", "nodes": ["a", "0"], "pulse": { "v2": 5, "period": "1m" } },
+              { "id": "V2", "kind": "voltage-source", "nodes": ["b", "0"], "pulse": { "v2": 5, "width": "2m", "period": "1m" } },
+              { "id": "R1", "kind": "resistor", "nodes": ["a", "0"], "value": "1k" },
+              { "id": "R2", "kind": "resistor", "nodes": ["b", "0"], "value": "1k" },
+            ] }
+            """;
+        NetlistLoadResult result = NetlistLoader.ReadText(json, "t.json");
+        Assert.Equal(["V1", "V2"], result.Errors.Select(e => e.PartId));
+        Assert.Contains("a repeating pulse needs \"width\"", result.Errors[0].Message, StringComparison.Ordinal);
+        Assert.Equal("pulse rise + width + fall (2.002 ms) exceeds its period (1 ms)", result.Errors[1].Message);
+        Assert.Equal("shorten \"width\" or lengthen \"period\"", result.Errors[1].Hint);
+    }
+
+    [Fact]
+    public void Columns_Count_Characters_Not_Bytes()
+    {
+        // "µ" and "Ω" take two bytes each in UTF-8; the column must still point at the value.
+        const string json = "{ \"name\": \"µΩ\", \"parts\": [ { \"id\": \"R1\", \"kind\": \"resistor\", \"nodes\": [\"a\", \"0\"], \"value\": \"1q\" } ] }";
+        NetlistError e = NetlistLoader.ReadText(json, "t.json").Errors.Single(x => x.JsonPath == "$.parts[0].value");
+        Assert.Equal(1, e.Line);
+        Assert.Equal(json.IndexOf("\"1q\"", StringComparison.Ordinal) + 1, e.Column);
     }
 
     [Fact]

@@ -46,6 +46,24 @@ public sealed class NetlistSchemaTests
         Assert.True(results.IsValid, JsonSerializer.Serialize(results));
     }
 
+    // Every form the engineering-value parser accepts must pass the schema's pattern, and plain words must not.
+    [Theory]
+    [InlineData("4k7", true)]
+    [InlineData("0R47", true)]
+    [InlineData("100nF", true)]
+    [InlineData("-5mA", true)]
+    [InlineData("1.5e-3", true)]
+    [InlineData("2h", true)]
+    [InlineData("5%", true)]
+    [InlineData("90deg", true)]
+    [InlineData("10 kΩ", true)]
+    [InlineData("inf", true)]
+    [InlineData("abc", false)]
+    [InlineData("4,7k", false)]
+    [InlineData("", false)]
+    public void Engineering_Pattern_Matches_Parser_Forms(string text, bool matches) =>
+        Assert.Equal(matches, System.Text.RegularExpressions.Regex.IsMatch(text, NetlistSchema.EngineeringPattern));
+
     [Fact]
     public void There_Are_Examples_To_Check() => Assert.True(RepoPaths.ExampleNetlists.Count() >= 2);
 

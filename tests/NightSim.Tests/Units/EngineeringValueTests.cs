@@ -97,6 +97,8 @@ public sealed class EngineeringValueTests
     [InlineData(-3.3e-9, "F", "-3.3 nF")]
     [InlineData(5400, "s", "1.5 h")]         // 1 h = 3600 s (SI brochure, table 8)
     [InlineData(90, "s", "1.5 min")]
+    [InlineData(0.05, "", "0.05")]
+    [InlineData(1e18, "Ω", "1e+18 Ω")]
     [InlineData(0.02, "s", "20 ms")]
     public void Format_Picks_The_Prefix(double value, string unit, string expected) =>
         Assert.Equal(expected, EngineeringValue.Format(value, unit));
