@@ -1,5 +1,6 @@
 using NightSim.Devices;
 using NightSim.Results;
+using NightSim.Transient;
 
 namespace NightSim.Tests.Devices;
 
@@ -111,6 +112,29 @@ public sealed class RelayTests
         List<double> open = BlockBench.Times(r, "K1", "contact no", "open");
         Assert.Single(open);
         Assert.True(open[0] > 0.2, "1.3 V must hold the relay; 1.1 V releases it");
+    }
+
+    // Flyback diode (check-values §8, common practice): when the driver opens, the coil current freewheels through the
+    // diode, which clamps the coil's low side at V_CC + V_D instead of a kilovolt kick, and lengthens the release: with an
+    // ideal 0.6–0.7 V diode the current falls from 30 mA to the 3 mA drop-out current in
+    // τ·ln((I0 + V_D/R)/(I_do + V_D/R)) = 2.38–2.43 ms, τ = L/R = 1.25 ms (R-L freewheel, check-values §8 [CALC]).
+    [Fact]
+    public void Flyback_Diode_Clamps_The_Coil_And_Delays_Release()
+    {
+        SimulationResult r = BlockBench.Run(
+        [
+            BlockBench.Dc("VCC", "v", 12.0),
+            new Relay("K1", "K1", "v", "low", [], s_class),
+            new Switch("S1", "S1", "low", "0", 0.01, 1e8, initiallyClosed: true, [(0.1, 0.0)]),
+            new Capacitor("CS", "CS", "low", "0", 100e-12),
+            new Diode("D1", "D1", "low", "v", 7e-9, 1.8, seriesResistance: 0.035),
+        ], 0.2, TransientOptions.Default with { RecordNodes = ["low", "K1.i"] });
+        double pulled = Assert.Single(BlockBench.Times(r, "K1", "coil", "pulled in"));
+        Assert.True(pulled < 0.1);
+        double released = Assert.Single(BlockBench.Times(r, "K1", "coil", "released"));
+        Assert.InRange(released - 0.1, 2.2e-3, 2.6e-3);
+        Assert.InRange(r.Trace("low")!.Max, 12.3, 13.0);          // clamped one diode drop above the supply
+        Assert.Equal(0.03, r.Trace("K1.i")!.At(0.099), 1e-4);      // 12 V / 400 Ω before opening
     }
 
     [Fact]
