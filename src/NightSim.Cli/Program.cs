@@ -16,6 +16,7 @@ internal static class Program
         // Verbs: one line each, in help order.
         root.Subcommands.Add(CheckCommand.Create());
         root.Subcommands.Add(SimulateCommand.Create());
+        root.Subcommands.Add(SkyCommand.Create());
 
         return root;
     }

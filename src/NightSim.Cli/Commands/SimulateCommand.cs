@@ -4,6 +4,7 @@ using NightSim.Netlist;
 using NightSim.Results;
 using NightSim.Transient;
 using NightSim.Units;
+using NightSim.Cli.Rendering;
 
 namespace NightSim.Cli.Commands;
 
@@ -14,12 +15,23 @@ internal static class SimulateCommand
     public static Command Create()
     {
         var netlist = new Argument<FileInfo>("NETLIST") { Description = "Netlist JSON file." };
-        var duration = new Option<string>("--for")
+        var duration = new Option<string?>("--for")
         {
-            Description = "Simulated time: a number with s, ms, us, min, h or d (e.g. 10s, 90min, 24h).",
-            Required = true,
+            Description = "Plain transient without a scenario: simulated time with s, ms, us, min, h or d (e.g. 10s, 90min, 24h).",
             HelpName = "DURATION",
         };
+        var scenario = new Option<FileInfo?>("--scenario", "-s")
+        {
+            Description = "Scenario JSON (site, dates, weather, light events). Default: <netlist>.scenario.json beside the netlist, if present.",
+            HelpName = "FILE",
+        };
+        var nights = new Option<int?>("--nights", "-n") { Description = "Number of nights (overrides the scenario).", HelpName = "N" };
+        var format = new Option<string>("--format") { Description = "Terminal output: text (table of nights) or json (report.json).", DefaultValueFactory = _ => "text" };
+        format.AcceptOnlyFromAmong("text", "json");
+        var noProgress = new Option<bool>("--no-progress") { Description = "No progress bar or progress lines." };
+        var failOn = new Option<string?>("--fail-on") { Description = "Exit with code 4 when a finding is at or above this severity.", HelpName = "warning|error" };
+        failOn.AcceptOnlyFromAmong("warning", "error");
+        var noPlots = new Option<bool>("--no-plots") { Description = "Skip the SVG/PNG plots (faster; report.html then has no figures)." };
         var lux = new Option<string?>("--lux") { Description = "Constant illuminance on every light sensor, lux (default 0).", HelpName = "VALUE" };
         var outDir = new Option<DirectoryInfo>("--out")
         {
@@ -28,14 +40,45 @@ internal static class SimulateCommand
             HelpName = "DIR",
         };
         var nodes = new Option<string?>("--nodes") { Description = "Comma-separated nodes to record (default: every node).", HelpName = "a,b" };
-        var command = new Command("simulate", "Run a transient simulation from power-up and write the traces (trace.csv) and solver statistics (statistics.json). Exit 2 on invalid input, 3 when the simulation fails.");
+        var command = new Command("simulate",
+            "Run a netlist through the nights of a scenario and report when the load switched on, for how long and why " +
+            "(report.json, report.html, trace.csv, plots). Without a scenario, --for [--lux] runs a plain transient " +
+            "(trace.csv, statistics.json). Exit 2 on invalid input, 3 when the simulation fails, 4 with --fail-on.");
         command.Arguments.Add(netlist);
         command.Options.Add(duration);
         command.Options.Add(lux);
         command.Options.Add(outDir);
         command.Options.Add(nodes);
-        command.SetAction(pr => CliErrors.Run(pr, (output, error) => Execute(
-            pr.GetValue(netlist)!, pr.GetValue(duration)!, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), output, error)));
+        command.Options.Add(scenario);
+        command.Options.Add(nights);
+        command.Options.Add(format);
+        command.Options.Add(noProgress);
+        command.Options.Add(failOn);
+        command.Options.Add(noPlots);
+        command.SetAction(pr => CliErrors.Run(pr, (output, error) =>
+        {
+            FileInfo net = pr.GetValue(netlist)!;
+            string? durationText = pr.GetValue(duration);
+            string? scenarioPath = pr.GetValue(scenario)?.ToString()
+                ?? (durationText is null ? SimulateNight.CompanionScenario(net.ToString()) : null);
+            if (scenarioPath is not null)
+            {
+                if (pr.GetValue(nights) is int n && n < 1)
+                {
+                    error.WriteLine("--nights: give at least 1 night");
+                    return CliErrors.InvalidInput;
+                }
+                var settings = new SimulateNight.Settings(net.ToString(), scenarioPath, pr.GetValue(nights), pr.GetValue(outDir)!,
+                    pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots));
+                return SimulateNight.Execute(settings, Terminal.For(output), output, error);
+            }
+            if (durationText is null)
+            {
+                error.WriteLine($"{net}: no scenario given and no {Path.GetFileNameWithoutExtension(net.Name)}.scenario.json beside it. hint: add --scenario FILE for a night run, or --for DURATION (e.g. --for 10s) for a plain transient");
+                return CliErrors.InvalidInput;
+            }
+            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), output, error);
+        }));
         return command;
     }
 

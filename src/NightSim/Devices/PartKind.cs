@@ -19,7 +19,8 @@ public sealed class PartKind
     /// this order; multi-pin kinds as "pins": { name: node }.</summary>
     public required IReadOnlyList<string> Pins { get; init; }
 
-    /// <summary>Pins that may be left out (e.g. a 555's control pin); they get a private node.</summary>
+    /// <summary>Pins that may be left out (e.g. a 555's control pin, a relay's contacts); a pin left out is absent from
+    /// <see cref="PartDefinition.Pins"/> and the kind's factory handles its absence.</summary>
     public IReadOnlyList<string> OptionalPins { get; init; } = [];
 
     /// <summary>True: the netlist writes "nodes": [...] in pin order; false: "pins": { name: node }.</summary>

@@ -386,14 +386,9 @@ public static class NetlistLoader
             foreach (string pin in kind.Pins)
             {
                 if (pins.ContainsKey(pin)) continue;
-                if (kind.OptionalPins.Contains(pin))
-                {
-                    string privateNode = $"{partId}.{pin}";
-                    pins[pin] = privateNode;
-                    _privateNodes.Add(privateNode);
-                    _nodeRefs.Add(new NodeRef(privateNode, partId, index, $"{path}.pins", pinsProp.Value.Line, pinsProp.Value.Column));
-                    continue;
-                }
+                // An optional pin left out stays absent: the kind decides what that means (a relay without that
+                // contact, a timer with its control pin inside). Inventing a node here would leave it floating.
+                if (kind.OptionalPins.Contains(pin)) continue;
                 if (!ok) continue;
                 Error(pinsProp.Value, path + ".pins", partId, $"missing pin \"{pin}\": a {kind.Name} has pins {pinList}",
                     $"add \"{pin}\": \"<node>\"" + (kind.OptionalPins.Count > 0 ? $" (optional pins: {string.Join(", ", kind.OptionalPins)})" : ""));

@@ -1,0 +1,132 @@
+using System.Globalization;
+using NightSim.Cli.Plotting;
+using NightSim.Cli.Rendering;
+using NightSim.Netlist;
+using NightSim.Reporting;
+using NightSim.Runs;
+using NightSim.Sky;
+using OxyPlot;
+using Spectre.Console;
+
+namespace NightSim.Cli.Commands;
+
+/// <summary>The night-run half of `simulate`: a netlist through a light scenario, then report.json, trace.csv, plots
+/// (SVG and PNG), report.html in the output folder and the table of nights on the terminal.</summary>
+internal static class SimulateNight
+{
+    /// <summary>Settings of one night run from the command line.</summary>
+    public sealed record Settings(
+        string NetlistPath,
+        string ScenarioPath,
+        int? Nights,
+        DirectoryInfo Out,
+        string Format,
+        bool NoProgress,
+        string? FailOn,
+        bool NoPlots);
+
+    /// <summary>The companion scenario of a demo netlist: &lt;name&gt;.scenario.json beside &lt;name&gt;.json, or null.</summary>
+    public static string? CompanionScenario(string netlistPath)
+    {
+        string dir = Path.GetDirectoryName(netlistPath) ?? "";
+        string stem = Path.GetFileNameWithoutExtension(netlistPath);
+        string candidate = Path.Combine(dir, stem + ".scenario.json");
+        return File.Exists(candidate) ? candidate : null;
+    }
+
+    public static int Execute(Settings s, IAnsiConsole console, TextWriter output, TextWriter error)
+    {
+        NetlistLoadResult loaded = NetlistLoader.Read(s.NetlistPath);
+        foreach (NetlistError w in loaded.Warnings) error.WriteLine(w.ToString());
+        if (!loaded.IsValid)
+        {
+            foreach (NetlistError e in loaded.Errors) error.WriteLine(e.ToString());
+            error.WriteLine(loaded.Errors.Count == 1 ? "1 error." : $"{loaded.Errors.Count} errors.");
+            return CliErrors.InvalidInput;
+        }
+        LightScenario scenario = ScenarioLoader.LoadOrThrow(s.ScenarioPath);
+        if (s.Nights is int n) scenario = scenario with { Nights = n };
+
+        var request = new NightRunRequest
+        {
+            Netlist = loaded.Definition!,
+            NetlistPath = s.NetlistPath,
+            Scenario = scenario,
+            ScenarioPath = s.ScenarioPath,
+            Tool = "nightsim " + typeof(SimulateNight).Assembly.GetName().Version?.ToString(3),
+        };
+        var progress = new ProgressReporter(console, enabled: !s.NoProgress && s.Format == "text");
+        int nights = scenario.Nights;
+        NightRunResult result = progress.Run(p => NightRun.Run(request, new Progress(p, nights)));
+
+        if (result.Simulation.Failure is { } failure)
+        {
+            error.WriteLine($"{s.NetlistPath}: simulation failed at {ReportText.Clock(result.Facts.Clock(failure.Time))} (run time {failure.Time.ToString("0.######", CultureInfo.InvariantCulture)} s): {failure}");
+            return CliErrors.Unexpected;
+        }
+
+        NightReport report = result.Report;
+        string dir = s.Out.FullName;
+        Directory.CreateDirectory(dir);
+        var written = new List<string>();
+        string reportPath = Path.Combine(dir, "report.json");
+        JsonReportWriter.Write(report, reportPath);
+        written.Add(reportPath);
+        string tracePath = Path.Combine(dir, "trace.csv");
+        CsvTraceWriter.Write(result.Traces, tracePath);
+        written.Add(tracePath);
+
+        var figures = new List<HtmlFigure>();
+        string? plotWarning = null;
+        if (!s.NoPlots)
+        {
+            int k = 0;
+            foreach (PlotData data in result.Plots)
+            {
+                PlotModel model = NightPlotBuilder.Build(data);
+                PlotFiles files = PlotWriter.Write(model, dir, data.FileStem);
+                written.Add(files.SvgPath);
+                if (files.PngPath is not null) written.Add(files.PngPath);
+                plotWarning ??= files.Warning;
+                figures.Add(new HtmlFigure(data.Title, PlotWriter.ToInlineSvg(NightPlotBuilder.Build(data), $"fig{++k}-", includeTitle: false)));
+            }
+        }
+        string htmlPath = Path.Combine(dir, "report.html");
+        HtmlReportWriter.Write(report, figures, htmlPath);
+        written.Add(htmlPath);
+
+        if (s.Format == "json")
+        {
+            using var stdout = new MemoryStream();
+            JsonReportWriter.Write(report, stdout);
+            output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+        }
+        else
+        {
+            TerminalReport.Render(report, console);
+            console.WriteLine();
+            console.MarkupLine($"[grey]wrote {written.Count} files to {Markup.Escape(dir)}: report.html, report.json, trace.csv and {written.Count - 3} plot files[/]");
+        }
+        if (plotWarning is not null) error.WriteLine("warning: " + plotWarning);
+        return FailOn(report, s.FailOn);
+    }
+
+    /// <summary>Exit 4 when a finding is at or above --fail-on (warning or error), else 0.</summary>
+    private static int FailOn(NightReport report, string? failOn)
+    {
+        if (failOn is null) return CliErrors.Success;
+        Analysis.Severity level = failOn == "warning" ? Analysis.Severity.Warning : Analysis.Severity.Error;
+        return report.Findings.Any(f => f.Severity >= level) ? 4 : CliErrors.Success;
+    }
+
+    /// <summary>Maps the run's overall fraction to night-by-night progress.</summary>
+    private sealed class Progress(IProgress<NightProgress> inner, int nights) : IProgress<double>
+    {
+        public void Report(double value)
+        {
+            double x = Math.Clamp(value, 0, 1) * nights;
+            int night = Math.Min(nights, (int)Math.Floor(x) + 1);
+            inner.Report(new NightProgress(night, nights, x - (night - 1)));
+        }
+    }
+}

@@ -1,0 +1,130 @@
+using System.Globalization;
+using NightSim.Analysis;
+using NightSim.Reporting;
+using Spectre.Console;
+
+namespace NightSim.Cli.Rendering;
+
+/// <summary>
+/// Renders a <see cref="NightReport"/> to the terminal: caution panel (top), table of nights, findings coloured by
+/// severity, one line of solver statistics.
+/// </summary>
+public static class TerminalReport
+{
+    /// <summary>Width used when output is redirected (Spectre would otherwise fix it at 80 columns).</summary>
+    public const int RedirectedWidth = 160;
+
+    private static readonly CultureInfo s_inv = CultureInfo.InvariantCulture;
+
+    /// <summary>When the console is not interactive (redirected), widen it to <see cref="RedirectedWidth"/> columns.</summary>
+    public static void ConfigureWidth(IAnsiConsole console)
+    {
+        if (!console.Profile.Capabilities.Interactive && console.Profile.Width < RedirectedWidth)
+            console.Profile.Width = RedirectedWidth;
+    }
+
+    /// <summary>Write the whole report to <paramref name="console"/> (calls <see cref="ConfigureWidth"/> first).</summary>
+    public static void Render(NightReport report, IAnsiConsole console)
+    {
+        ConfigureWidth(console);
+        if (report.Cautions.Count > 0) console.Write(CautionPanel(report.Cautions));
+        console.Write(new Rule("[bold]" + Markup.Escape(report.CircuitName) + "[/]").LeftJustified().RuleStyle("grey"));
+        console.MarkupLine("[grey]" + Markup.Escape(Summary(report)) + "[/]");
+        console.WriteLine();
+        console.Write(NightsTable(report.Nights));
+        console.WriteLine();
+        WriteFindings(report.Findings, console);
+        console.WriteLine();
+        console.MarkupLine("[grey]" + Markup.Escape(StatisticsLine(report.Statistics)) + "[/]");
+    }
+
+    /// <summary>"site Hollow Lane (Etc/GMT-1) · 2 nights · seed 42".</summary>
+    public static string Summary(NightReport r)
+    {
+        var parts = new List<string>();
+        if (r.SiteName is not null) parts.Add("site " + r.SiteName + (r.TimeZone is null ? "" : " (" + r.TimeZone + ")"));
+        parts.Add(r.Nights.Count.ToString(s_inv) + (r.Nights.Count == 1 ? " night" : " nights"));
+        parts.Add("seed " + r.Seed.ToString(s_inv));
+        return string.Join(" · ", parts);
+    }
+
+    /// <summary>"solver: 1234 steps accepted, 5 rejected, 2345 Newton iterations, 12 events, 1.84 s CPU".</summary>
+    public static string StatisticsLine(ReportStatistics s) =>
+        string.Create(s_inv, $"solver: {s.AcceptedSteps} steps accepted, {s.RejectedSteps} rejected, {s.NewtonIterations} Newton iterations, {s.Events} events, {s.CpuSeconds:0.##} s CPU");
+
+    private static Panel CautionPanel(IReadOnlyList<string> cautions)
+    {
+        var rows = new Rows(cautions.Select(c => (Spectre.Console.Rendering.IRenderable)new Markup("• " + Markup.Escape(c))));
+        return new Panel(rows)
+        {
+            Header = new PanelHeader("[bold yellow] CAUTION: mains voltage [/]"),
+            Border = BoxBorder.Heavy,
+            BorderStyle = new Style(Color.Yellow),
+            Expand = true,
+        };
+    }
+
+    private static Table NightsTable(IReadOnlyList<NightSummary> nights)
+    {
+        var table = new Table().Border(TableBorder.Rounded).BorderColor(Color.Grey).Title("[bold]Nights[/]");
+        table.AddColumn("Date");
+        table.AddColumn("Sunset");
+        table.AddColumn("On at");
+        table.AddColumn("Off at");
+        table.AddColumn(new TableColumn("Duration").RightAligned());
+        table.AddColumn("Cause");
+        table.AddColumn(new TableColumn("False trig.").RightAligned());
+        table.AddColumn(new TableColumn("Early offs").RightAligned());
+        table.AddColumn(new TableColumn("Relay ops").RightAligned());
+        table.AddColumn(new TableColumn("Energy Wh").RightAligned());
+        if (nights.Count == 0)
+        {
+            table.AddRow("[grey]no nights[/]", "", "", "", "", "", "", "", "", "");
+            return table;
+        }
+        foreach (NightSummary n in nights)
+        {
+            int rows = Math.Max(1, n.LoadOn.Count);
+            for (int i = 0; i < rows; i++)
+            {
+                bool first = i == 0;
+                LoadInterval? on = n.LoadOn.Count > 0 ? n.LoadOn[i] : null;
+                string date = first ? n.Date.ToString("yyyy-MM-dd", s_inv) : "";
+                string sunset = first ? ReportText.Clock(n.Sunset) : "";
+                string onAt = on is null ? (n.Missed ? "[red]missed[/]" : "—") : ReportText.Clock(on.Start);
+                string offAt = on is null ? "—" : on.End is null ? "[yellow]still on[/]" : ReportText.Clock(on.End);
+                string duration = on is null ? "—" : ReportText.Duration(on.DurationSeconds);
+                string cause = on is null ? "" : on.Expected
+                    ? Markup.Escape(ReportText.Cause(on.Cause))
+                    : "[red]" + Markup.Escape(ReportText.Cause(on.Cause)) + "[/]";
+                table.AddRow(
+                    date, sunset, onAt, offAt, duration, cause,
+                    first ? Count(n.FalseTriggers) : "",
+                    first ? Count(n.EarlyOffs) : "",
+                    first ? n.RelayOperations.ToString(s_inv) : "",
+                    first ? n.LoadEnergyWh.ToString("0.00", s_inv) : "");
+            }
+        }
+        return table;
+    }
+
+    private static string Count(int n) => n > 0 ? "[red]" + n.ToString(s_inv) + "[/]" : "0";
+
+    private static void WriteFindings(IReadOnlyList<Finding> findings, IAnsiConsole console)
+    {
+        console.MarkupLine("[bold]Findings[/]");
+        if (findings.Count == 0)
+        {
+            console.MarkupLine("  [green]none: every night behaved as intended[/]");
+            return;
+        }
+        foreach (Finding f in findings.Select((f, i) => (f, i)).OrderByDescending(x => x.f.Severity).ThenBy(x => x.i).Select(x => x.f))
+        {
+            string colour = f.Severity switch { Severity.Error => "red", Severity.Warning => "yellow", _ => "blue" };
+            string sev = ReportText.Severity(f.Severity);
+            string where = (f.At is DateTimeOffset at ? " at " + ReportText.Clock(at) : "") + (f.Part is null ? "" : " (" + f.Part + ")");
+            console.MarkupLine($"  [bold {colour}]{sev,-7}[/] [grey]{Markup.Escape(f.Code)}{Markup.Escape(where)}[/]: {Markup.Escape(f.Message)}");
+            if (f.Fix is not null) console.MarkupLine("          [green]fix:[/] " + Markup.Escape(f.Fix));
+        }
+    }
+}

@@ -1,0 +1,137 @@
+using NightSim.Reporting;
+using NightSim.Results;
+
+namespace NightSim.Analysis;
+
+/// <summary>One on-interval of the load with its attributed cause, in run seconds.</summary>
+public sealed record AttributedInterval(
+    double Start,
+    double? End,
+    double PowerWatts,
+    LoadCause Cause,
+    bool Expected,
+    string Explanation,
+    string EndedBy,
+    bool EndedByTimer,
+    EventFact? Event);
+
+/// <summary>
+/// Turns load transitions into on-intervals and attributes each switch-on to a cause: power-up, the lamp's own
+/// light, a darkening light or noise event shortly before, dusk (the first otherwise unexplained switch-on in the
+/// dusk window), or unexplained. A dusk-activated trigger fires on a darkening edge, so a light event is blamed for a
+/// switch-on that comes between its start and shortly after its end.
+/// </summary>
+public static class LoadTimeline
+{
+    /// <summary>Seconds before sunset from which a switch-on may count as dusk (overcast evenings come early).</summary>
+    public const double DuskWindowBeforeSunset = 2 * 3600.0;
+
+    /// <summary>Seconds after civil dusk until which an unexplained switch-on may still count as dusk.</summary>
+    public const double DuskWindowAfterCivilDusk = 2 * 3600.0;
+
+    /// <summary>Build the attributed intervals of a run, in time order.</summary>
+    public static IReadOnlyList<AttributedInterval> Build(RunFacts facts)
+    {
+        var raw = new List<(double Start, double? End, double Power)>();
+        double? onSince = null;
+        double power = 0;
+        foreach (LoadTransition t in facts.LoadTransitions.OrderBy(t => t.Time))
+        {
+            if (t.On && onSince is null)
+            {
+                onSince = t.Time;
+                power = t.PowerWatts;
+            }
+            else if (!t.On && onSince is not null)
+            {
+                raw.Add((onSince.Value, t.Time, power));
+                onSince = null;
+            }
+        }
+        if (onSince is not null) raw.Add((onSince.Value, null, power));
+
+        var result = new List<AttributedInterval>(raw.Count);
+        var nightsWithDusk = new HashSet<DateOnly>();
+        double? previousEnd = null;
+        foreach ((double start, double? end, double p) in raw)
+        {
+            NightWindow? night = NightOf(facts, start);
+            (LoadCause cause, string explanation, EventFact? ev) = Attribute(facts, start, previousEnd, night, nightsWithDusk);
+            bool expected = false;
+            if (cause == LoadCause.Dusk && night is not null && nightsWithDusk.Add(night.Date)) expected = true;
+            else if (cause == LoadCause.Dusk && night is null) expected = result.Count == 0;
+            (string endedBy, bool byTimer) = EndedBy(facts, end);
+            result.Add(new AttributedInterval(start, end, p, cause, expected, explanation, endedBy, byTimer, ev));
+            previousEnd = end;
+        }
+        return result;
+    }
+
+    /// <summary>The night window containing run time <paramref name="t"/>, or null.</summary>
+    public static NightWindow? NightOf(RunFacts facts, double t)
+    {
+        foreach (NightWindow n in facts.Nights)
+        {
+            if (t >= n.From && t < n.To) return n;
+        }
+        return null;
+    }
+
+    private static (LoadCause, string, EventFact?) Attribute(
+        RunFacts facts, double t, double? previousEnd, NightWindow? night, HashSet<DateOnly> nightsWithDusk)
+    {
+        if (t <= facts.PowerUpWindow)
+        {
+            return (LoadCause.PowerUp, "the circuit powered up with its capacitors empty, which fires the one-shot", null);
+        }
+
+        // The most recent darkening event whose window (plus the sensor's lag) contains the switch-on.
+        EventFact? best = null;
+        foreach (EventFact e in facts.Events)
+        {
+            if (!e.Darkening) continue;
+            double lag = e.Cause == LoadCause.Noise ? 1.0 : facts.AttributionLag;
+            if (t >= e.Start - 1e-6 && t <= e.End + lag && (best is null || e.End > best.End)) best = e;
+        }
+        if (best is not null)
+        {
+            return (best.Cause, $"{best.Description} at {ReportText.Clock(facts.Clock(best.Start))}", best);
+        }
+
+        if (facts.LampCouplingLux > 0 && previousEnd is double pe && t - pe <= facts.AttributionLag)
+        {
+            return (LoadCause.SelfIllumination,
+                $"the lamp's own light ({facts.LampCouplingLux:0.##} lx at the sensor) went out at {ReportText.Clock(facts.Clock(pe))}, and the sensor saw darkness again", null);
+        }
+
+        bool inDuskWindow = night is null || night.Sunset is null ||
+            (facts.Clock(t) >= night.Sunset.Value.AddSeconds(-DuskWindowBeforeSunset) &&
+             facts.Clock(t) <= (night.CivilDusk ?? night.Sunset.Value).AddSeconds(DuskWindowAfterCivilDusk));
+        bool duskTaken = night is not null && nightsWithDusk.Contains(night.Date);
+        if (inDuskWindow && !duskTaken)
+        {
+            string lux = facts.SkyLux is null ? "" : $" ({facts.SkyLux(t):0.##} lx at the sensor)";
+            return (LoadCause.Dusk, "falling daylight crossed the switching level" + lux, null);
+        }
+        return (LoadCause.Unexplained, "no light or noise event and no dusk edge explains this switch-on", null);
+    }
+
+    private static (string, bool) EndedBy(RunFacts facts, double? end)
+    {
+        if (end is null) return ("still on at the end of the run", false);
+        // The latest timer-side discrete change just before the load went off tells why.
+        DiscreteEvent? last = null;
+        foreach (DiscreteEvent e in facts.DeviceEvents)
+        {
+            if (e.Time > end.Value + 1e-6) break;
+            if (e.Time < end.Value - 1.0) continue;
+            bool isLoad = facts.LoadTransitions.Any(l => l.PartId == e.PartId);
+            if (!isLoad) last = e;
+        }
+        if (last is null) return ("switched off (relay dropped out without a timer change: supply sag?)", false);
+        string d = last.Device.ToLowerInvariant();
+        if (d.Contains("threshold", StringComparison.Ordinal)) return ("timer ran out", true);
+        if (d.Contains("reset", StringComparison.Ordinal)) return ($"reset ({last.Device} went {last.To})", false);
+        return ($"{last.Device} {last.Signal} went {last.To}", false);
+    }
+}

@@ -1,0 +1,100 @@
+using NightSim.Reporting;
+using NightSim.Results;
+
+namespace NightSim.Analysis;
+
+/// <summary>One night's window and its sky times (site local clock).</summary>
+/// <param name="Date">Calendar date of the evening.</param>
+/// <param name="From">Run time the night window starts (local noon), seconds.</param>
+/// <param name="To">Run time it ends (next local noon), seconds.</param>
+public sealed record NightWindow(
+    DateOnly Date,
+    double From,
+    double To,
+    DateTimeOffset? Sunset,
+    DateTimeOffset? CivilDusk,
+    DateTimeOffset? CivilDawn,
+    DateTimeOffset? Sunrise);
+
+/// <summary>A switched load going on or off (relay contact into a named load).</summary>
+/// <param name="Time">Run time, seconds.</param>
+/// <param name="On">True when it switched on.</param>
+/// <param name="Load">Load name ("lamp").</param>
+/// <param name="PowerWatts">Rated load power, W (0 if unknown).</param>
+/// <param name="PartId">Relay part id.</param>
+public sealed record LoadTransition(double Time, bool On, string Load, double PowerWatts, string PartId);
+
+/// <summary>A light or noise event of the scenario as the analysis sees it.</summary>
+/// <param name="Cause">The cause it stands for (headlight, lightning, steady light, noise, …).</param>
+/// <param name="Kind">Scenario kind name.</param>
+/// <param name="Start">Run time it starts, seconds.</param>
+/// <param name="End">Run time it ends, seconds.</param>
+/// <param name="Peak">Peak lux (or amplitude for noise).</param>
+/// <param name="Description">Plain words.</param>
+/// <param name="Darkening">True when its end makes the sensor darker than before (the edge that can fire a dusk trigger).</param>
+public sealed record EventFact(LoadCause Cause, string Kind, double Start, double End, double Peak, string Description, bool Darkening = true);
+
+/// <summary>Static facts about one 555-class one-shot, for the on-time and leakage checks.</summary>
+/// <param name="PartId">Timer part id.</param>
+/// <param name="Resistance">Timing resistance from the supply to the timing capacitor, Ω.</param>
+/// <param name="Capacitance">Timing capacitance, F.</param>
+/// <param name="SupplyVoltage">Supply, V.</param>
+/// <param name="DrainCurrent">Constant drain at the timing node (capacitor leakage + threshold input current), A.</param>
+/// <param name="LeakageResistance">Leakage as a resistance across the capacitor, Ω (∞ if none).</param>
+public sealed record TimerFacts(string PartId, double Resistance, double Capacitance, double SupplyVoltage, double DrainCurrent, double LeakageResistance)
+{
+    /// <summary>Charging current available at the 2/3 threshold minus the drains, A (negative: never ends).
+    /// (V_CC/3)/R − I_drain − (2V_CC/3)/R_L; textbook RC charging with a constant drain.</summary>
+    public double MarginCurrent =>
+        SupplyVoltage / 3.0 / Resistance - DrainCurrent - (double.IsInfinity(LeakageResistance) ? 0.0 : 2.0 * SupplyVoltage / 3.0 / LeakageResistance);
+
+    /// <summary>Closed-form one-shot width, s: from 0 V to 2/3 V_CC with R, C, a constant drain and a leakage
+    /// resistance (Thevenin: V∞ = (V_CC − I·R)·R_L/(R + R_L), τ = C·(R∥R_L)); +∞ when the threshold is never reached.</summary>
+    public double ClosedFormWidth
+    {
+        get
+        {
+            double rl = LeakageResistance;
+            double rPar = double.IsInfinity(rl) ? Resistance : Resistance * rl / (Resistance + rl);
+            double vInf = double.IsInfinity(rl)
+                ? SupplyVoltage - DrainCurrent * Resistance
+                : (SupplyVoltage / Resistance - DrainCurrent) * rPar;
+            double vTh = 2.0 * SupplyVoltage / 3.0;
+            if (vInf <= vTh) return double.PositiveInfinity;
+            return rPar * Capacitance * Math.Log(vInf / (vInf - vTh));
+        }
+    }
+}
+
+/// <summary>Everything the analysis reads about one finished run, in run seconds. Built from the simulation result,
+/// the scenario and the netlist by the caller; the analysers never see the solver.</summary>
+public sealed record RunFacts
+{
+    public required DateTimeOffset Origin { get; init; }
+    public TimeZoneInfo TimeZone { get; init; } = TimeZoneInfo.Utc;
+    public required double Duration { get; init; }
+    public IReadOnlyList<NightWindow> Nights { get; init; } = [];
+    public IReadOnlyList<LoadTransition> LoadTransitions { get; init; } = [];
+    public IReadOnlyList<EventFact> Events { get; init; } = [];
+    public IReadOnlyList<DiscreteEvent> DeviceEvents { get; init; } = [];
+    public IReadOnlyList<TimerFacts> Timers { get; init; } = [];
+
+    /// <summary>Illuminance at the sensor from the sky alone (no events, no lamp), lux against run seconds; null if unknown.</summary>
+    public Func<double, double>? SkyLux { get; init; }
+
+    /// <summary>Illuminance at the sensor including every event, lux against run seconds; null if unknown.</summary>
+    public Func<double, double>? SensorLux { get; init; }
+
+    /// <summary>Lux the lamp adds at its own sensor while on (0 when not coupled).</summary>
+    public double LampCouplingLux { get; init; }
+
+    /// <summary>Run time until which a switch-on counts as caused by power-up, seconds.</summary>
+    public double PowerUpWindow { get; init; } = 5.0;
+
+    /// <summary>How long after a darkening edge (event end) a switch-on is still attributed to it, seconds
+    /// (the sensor's decay lag and the trigger network).</summary>
+    public double AttributionLag { get; init; } = 30.0;
+
+    /// <summary>Clock time of a run time.</summary>
+    public DateTimeOffset Clock(double runSeconds) => TimeZoneInfo.ConvertTime(Origin.AddSeconds(runSeconds), TimeZone);
+}

@@ -1,0 +1,204 @@
+using NightSim.Analysis;
+using NightSim.Devices;
+using NightSim.Netlist;
+using NightSim.Reporting;
+using NightSim.Results;
+using NightSim.Sky;
+using NightSim.Sky.Events;
+using NightSim.Transient;
+
+namespace NightSim.Runs;
+
+/// <summary>
+/// The night run, end to end: builds the circuit with the scenario's noise and lamp coupling, steps it through the
+/// nights, then turns the result into facts, findings, a report, a trace table and plot data.
+/// </summary>
+/// <remarks>What must come first: devices are created before the light signal, because the lamp's light at its own
+/// sensor reads the relay's state; the circuit is assembled after both.</remarks>
+public static class NightRun
+{
+    /// <summary>Default run length of a plain transient, seconds.</summary>
+    public const double DefaultDuration = 86400.0;
+
+    public static NightRunResult Run(NightRunRequest request, IProgress<double>? progress = null)
+    {
+        NetlistDefinition net = request.Netlist;
+        LightProfile? profile = request.Scenario?.CreateProfile();
+        double stop = profile?.Duration ?? request.Duration ?? DefaultDuration;
+
+        var devices = new List<Device>();
+        foreach (PartDefinition part in net.Parts)
+        {
+            PartKind kind = PartCatalog.Find(part.Kind) ?? throw new RunInputException([$"{net.SourceFile}: part '{part.Id}': unknown kind '{part.Kind}'"]);
+            devices.AddRange(kind.Create(part));
+        }
+        List<string> nodes = NetlistNodes(net);
+        var problems = new List<string>();
+        ILightSignal? light = profile;
+        if (profile is not null)
+        {
+            AddNoise(request, profile, nodes, devices, problems);
+            light = Couple(request, profile, devices, problems);
+        }
+        if (problems.Count > 0) throw new RunInputException(problems);
+
+        Circuit circuit = Circuit.FromDevices(net.Name, devices, light);
+        TransientOptions options = request.Options with { RecordNodes = nodes, ConstantLux = request.ConstantLux };
+        var solver = new TransientSolver(circuit, options, light);
+
+        List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
+        var zoomIndices = nodes.Select(circuit.IndexOf).ToList();
+        var zoom = new ZoomCapture(zoomIndices);
+        bool[] lastOn = new bool[loads.Count];
+        double nextReport = 0;
+        solver.Accepted = s =>
+        {
+            zoom.Add(s.Time, s.Solution);
+            for (int i = 0; i < lastOn.Length; i++)
+            {
+                bool on = loads[i].LoadOn;
+                if (on != lastOn[i])
+                {
+                    lastOn[i] = on;
+                    zoom.Mark(s.Time, on ? "load on" : "load off");
+                }
+            }
+            if (progress is not null && s.Time >= nextReport)
+            {
+                progress.Report(Math.Clamp(s.Time / stop, 0, 1));
+                nextReport = s.Time + stop / 400;
+            }
+        };
+        SimulationResult sim = solver.Run(stop);
+        progress?.Report(1.0);
+
+        RunFacts facts = RunFactsBuilder.Build(request, profile, devices, sim, stop);
+        AnalysisResult analysis = NightAnalysis.Analyze(facts);
+        NightReport report = BuildReport(request, profile, facts, analysis, sim);
+        TraceTable table = NightTraces.Table(facts, profile, sim, nodes);
+        IReadOnlyList<PlotData> plots = NightTraces.Plots(request, facts, analysis, profile, sim, zoom, nodes);
+        return new NightRunResult(sim, profile, facts, analysis, report, table, plots);
+    }
+
+    /// <summary>Every node the netlist names, ground excluded, in first-use order.</summary>
+    public static List<string> NetlistNodes(NetlistDefinition net)
+    {
+        var seen = new HashSet<string>(StringComparer.Ordinal);
+        var list = new List<string>();
+        foreach (PartDefinition p in net.Parts)
+        {
+            PartKind? kind = PartCatalog.Find(p.Kind);
+            IEnumerable<string> pins = kind is null ? p.Pins.Keys : kind.Pins.Where(p.Pins.ContainsKey);
+            foreach (string pin in pins)
+            {
+                string node = p.Pins[pin];
+                if (node != "0" && seen.Add(node)) list.Add(node);
+            }
+        }
+        return list;
+    }
+
+    /// <summary>True when the design touches mains: a relay switching a named load, or a source of mains amplitude.</summary>
+    public static bool TouchesMains(NetlistDefinition net) =>
+        net.Parts.Any(p => p.Kind == "relay" && p.Parameters.Has("load"))
+        || net.Parts.Any(p => p.Kind == "voltage-source" && p.Parameters.Object("sine") is { } s && Math.Abs(s.Number("amplitude", 0)) >= 50);
+
+    private static void AddNoise(NightRunRequest request, LightProfile profile, List<string> nodes, List<Device> devices, List<string> problems)
+    {
+        foreach (IGrouping<(string Node, NoiseQuantity Quantity), NoiseInjection> g in
+                 profile.NoiseInjections.GroupBy(n => (n.Node, n.Quantity)))
+        {
+            string node = g.Key.Node;
+            if (!nodes.Contains(node))
+            {
+                problems.Add($"{request.ScenarioPath ?? "scenario"}: error: noise at node '{node}', which netlist {request.NetlistPath} does not have. hint: nodes are {string.Join(", ", nodes.Take(12))}");
+                continue;
+            }
+            NoiseInjection[] pulses = [.. g.OrderBy(n => n.Time)];
+            devices.Add(new NoiseInjector($"noise.{node}.{(g.Key.Quantity == NoiseQuantity.Current ? "i" : "v")}", node,
+                [.. pulses.Select(p => p.Time)], [.. pulses.Select(p => p.Width)], [.. pulses.Select(p => p.Amplitude)],
+                g.Key.Quantity == NoiseQuantity.Current));
+        }
+    }
+
+    private static ILightSignal Couple(NightRunRequest request, LightProfile profile, List<Device> devices, List<string> problems)
+    {
+        var couplings = new List<(int, Func<bool>, double)>();
+        foreach (LampCoupling c in profile.LampCouplings)
+        {
+            int channel = profile.ChannelIndex(c.Channel);
+            Device? part = devices.FirstOrDefault(d => d.PartId == c.Part && d is ISwitchedLoad);
+            if (part is null)
+            {
+                string loads = string.Join(", ", devices.OfType<ISwitchedLoad>().Cast<Device>().Select(d => d.PartId).Distinct());
+                problems.Add($"{request.ScenarioPath ?? "scenario"}: error: lamp-coupling names part '{c.Part}', which is not a relay or switched load in {request.NetlistPath}. hint: switched loads: {(loads.Length > 0 ? loads : "none")}");
+                continue;
+            }
+            if (channel < 0)
+            {
+                problems.Add($"{request.ScenarioPath ?? "scenario"}: error: lamp-coupling channel '{c.Channel}' is not a light channel of the scenario. hint: channels: {string.Join(", ", profile.ChannelNames)}");
+                continue;
+            }
+            var load = (ISwitchedLoad)part;
+            Func<bool> isOn = c.Contact is string contact && part is Relay relay
+                ? ContactQuery(relay, contact, problems, request)
+                : () => load.LoadName is not null ? load.LoadOn : part is Relay r && r.IsOperated;
+            couplings.Add((channel, isOn, c.Lux));
+        }
+        return couplings.Count == 0 ? profile : new CoupledLightSignal(profile, couplings);
+    }
+
+    private static Func<bool> ContactQuery(Relay relay, string contact, List<string> problems, NightRunRequest request)
+    {
+        for (int k = 0; k < relay.Contacts.Count; k++)
+        {
+            if (relay.Contacts[k].Label == contact)
+            {
+                int index = k;
+                return () => relay.IsContactClosed(index);
+            }
+        }
+        problems.Add($"{request.ScenarioPath ?? "scenario"}: error: relay '{relay.PartId}' has no contact '{contact}'. hint: contacts: {string.Join(", ", relay.Contacts.Select(c => c.Label))}");
+        return () => false;
+    }
+
+    private static NightReport BuildReport(NightRunRequest request, LightProfile? profile, RunFacts facts, AnalysisResult analysis, SimulationResult sim)
+    {
+        var events = new List<ReportEvent>();
+        if (profile is not null)
+        {
+            foreach (ScheduledLightEvent e in profile.ScheduledEvents)
+            {
+                if (e.Kind == "lamp-coupling") continue;
+                events.Add(new ReportEvent(e.Kind, e.Start, e.End, e.PeakLux, e.Description));
+            }
+            foreach (NoiseInjection n in profile.NoiseInjections)
+            {
+                if (events.Any(e => e.Kind == "noise" && e.Start == n.Instant)) continue;
+                events.Add(new ReportEvent("noise", n.Instant, facts.Clock(n.Time + n.Width), n.Amplitude, n.Description));
+            }
+            events.Sort((a, b) => a.Start.CompareTo(b.Start));
+        }
+        var findings = analysis.Findings.ToList();
+        if (sim.Failure is SimulationFailure f)
+        {
+            findings.Insert(0, new Finding(Severity.Error, "simulation-failed", $"The simulation stopped at {ReportText.Clock(facts.Clock(f.Time))}: {f.Reason}", f.Hint));
+        }
+        SolverStatistics st = sim.Statistics;
+        return new NightReport
+        {
+            Tool = request.Tool,
+            Netlist = request.NetlistPath,
+            Scenario = request.ScenarioPath,
+            CircuitName = request.Netlist.Name,
+            SiteName = profile?.Scenario.Site.Name,
+            TimeZone = profile?.Scenario.Site.TimeZone.Id,
+            Seed = profile?.Seed ?? 0,
+            Nights = analysis.Nights,
+            Findings = findings,
+            Events = events,
+            Statistics = new ReportStatistics(st.AcceptedSteps, st.RejectedSteps, st.NewtonIterations, st.Events, st.CpuSeconds),
+            Cautions = TouchesMains(request.Netlist) ? ReportText.MainsCautions : [],
+        };
+    }
+}

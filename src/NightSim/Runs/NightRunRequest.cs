@@ -1,0 +1,34 @@
+using NightSim.Netlist;
+using NightSim.Sky;
+using NightSim.Transient;
+
+namespace NightSim.Runs;
+
+/// <summary>What to run: a netlist through a light scenario (a night run), or through a constant light for a fixed
+/// time (a plain transient). Immutable.</summary>
+public sealed record NightRunRequest
+{
+    /// <summary>The validated netlist.</summary>
+    public required NetlistDefinition Netlist { get; init; }
+
+    /// <summary>Netlist path as the user wrote it (for the report).</summary>
+    public string NetlistPath { get; init; } = "";
+
+    /// <summary>The light scenario, or null for a plain transient under <see cref="ConstantLux"/>.</summary>
+    public LightScenario? Scenario { get; init; }
+
+    /// <summary>Scenario path as the user wrote it (for the report), or null.</summary>
+    public string? ScenarioPath { get; init; }
+
+    /// <summary>Run length without a scenario, seconds (default 24 h). With a scenario the nights set it.</summary>
+    public double? Duration { get; init; }
+
+    /// <summary>Illuminance at every sensor without a scenario, lux.</summary>
+    public double ConstantLux { get; init; }
+
+    /// <summary>Solver options; the run sets its own trace list and light.</summary>
+    public TransientOptions Options { get; init; } = TransientOptions.Default;
+
+    /// <summary>Tool name and version for the report.</summary>
+    public string Tool { get; init; } = "nightsim";
+}

@@ -1,0 +1,229 @@
+using NightSim.Analysis;
+using NightSim.Reporting;
+using NightSim.Results;
+using NightSim.Sky;
+
+namespace NightSim.Runs;
+
+/// <summary>Turns a run into the trace table (trace.csv) and the plot data: one plot per night and one zoom per
+/// captured switching event.</summary>
+public static class NightTraces
+{
+    /// <summary>Illuminance at the sensor including the lamp's own light, lux, at run time t.</summary>
+    public static double SensorLux(RunFacts facts, double t)
+    {
+        double lux = facts.SensorLux?.Invoke(t) ?? 0;
+        if (facts.LampCouplingLux > 0 && LoadOn(facts, t)) lux += facts.LampCouplingLux;
+        return lux;
+    }
+
+    /// <summary>True when the load was on at run time t.</summary>
+    public static bool LoadOn(RunFacts facts, double t)
+    {
+        bool on = false;
+        foreach (LoadTransition x in facts.LoadTransitions)
+        {
+            if (x.Time > t) break;
+            on = x.On;
+        }
+        return on;
+    }
+
+    public static TraceTable Table(RunFacts facts, LightProfile? profile, SimulationResult sim, IReadOnlyList<string> nodes)
+    {
+        Trace? first = sim.Traces.FirstOrDefault();
+        double[] times = first is null ? [] : [.. first.Times];
+        var names = new List<string>();
+        var columns = new List<double[]>();
+        foreach (string node in nodes)
+        {
+            Trace? tr = sim.Trace(node);
+            if (tr is null) continue;
+            names.Add($"V({node}) V");
+            columns.Add(SameTimes(tr, times) ? [.. tr.Values] : [.. times.Select(tr.At)]);
+        }
+        if (profile is not null)
+        {
+            names.Add("illuminance lx");
+            columns.Add([.. times.Select(t => SensorLux(facts, t))]);
+        }
+        if (facts.LoadTransitions.Count > 0)
+        {
+            names.Add("load 0/1");
+            columns.Add([.. times.Select(t => LoadOn(facts, t) ? 1.0 : 0.0)]);
+        }
+        return new TraceTable(facts.Origin, facts.TimeZone, times, names, columns);
+    }
+
+    public static IReadOnlyList<PlotData> Plots(NightRunRequest request, RunFacts facts, AnalysisResult analysis, LightProfile? profile,
+        SimulationResult sim, ZoomCapture zoom, IReadOnlyList<string> nodes)
+    {
+        NodeRoles roles = NodeRoles.Of(request.Netlist);
+        var plots = new List<PlotData>();
+        IReadOnlyList<NightWindow> windows = facts.Nights.Count > 0
+            ? facts.Nights
+            : [new NightWindow(DateOnly.FromDateTime(facts.Origin.Date), 0, facts.Duration, null, null, null, null)];
+        foreach (NightWindow n in windows)
+        {
+            double from = n.From, to = Math.Min(n.To, facts.Duration);
+            if (to <= from) continue;
+            var series = new List<PlotSeries>();
+            Trace? first = sim.Traces.FirstOrDefault();
+            double[] times = first is null ? [] : [.. first.Times.Where(t => t >= from && t <= to)];
+            if (profile is not null) series.Add(LuxSeries(facts, profile, times, from, to));
+            foreach ((string node, string title) in Voltages(roles))
+            {
+                if (sim.Trace(node) is Trace tr) series.Add(Slice(tr, from, to, title));
+            }
+            AddThirds(series, roles, sim, times);
+            if (facts.LoadTransitions.Count > 0) series.Add(LoadSeries(facts, from, to));
+            var markers = new List<PlotMarker>();
+            AddSun(markers, facts, n);
+            foreach (AttributedInterval iv in analysis.Intervals.Where(i => i.Start >= from && i.Start < to && !i.Expected))
+            {
+                markers.Add(new PlotMarker(iv.Start, $"{ReportText.Cause(iv.Cause)} {ReportText.Clock(facts.Clock(iv.Start))}", Emphasis: true));
+            }
+            plots.Add(new PlotData
+            {
+                Title = $"{request.Netlist.Name}: night of {n.Date:yyyy-MM-dd}" + (profile is null ? "" : $" at {profile.Scenario.Site.Name}"),
+                Origin = facts.Origin,
+                TimeZone = facts.TimeZone,
+                From = from,
+                To = to,
+                Series = series,
+                Markers = markers,
+                FileStem = $"night-{n.Date:yyyy-MM-dd}",
+            });
+        }
+
+        int k = 0;
+        foreach (ZoomCapture.Window w in zoom.Windows)
+        {
+            k++;
+            if (w.Times.Count < 2) continue;
+            double from = w.Times[0], to = w.Times[^1];
+            double[] times = [.. w.Times];
+            var series = new List<PlotSeries>();
+            if (profile is not null) series.Add(LuxSeries(facts, profile, times, from, to));
+            var byNode = nodes.Select((name, i) => (name, i)).ToDictionary(x => x.name, x => x.i, StringComparer.Ordinal);
+            foreach ((string node, string title) in Voltages(roles))
+            {
+                if (byNode.TryGetValue(node, out int i)) series.Add(new PlotSeries(title, "V", PlotPanel.Voltages, times, [.. w.Columns[i]]));
+            }
+            if (roles.Supply is string vcc && byNode.TryGetValue(vcc, out int si) && roles.Timing is not null)
+            {
+                double[] supply = [.. w.Columns[si]];
+                series.Add(new PlotSeries("1/3 supply", "V", PlotPanel.Voltages, times, [.. supply.Select(v => v / 3)], Dashed: true));
+                series.Add(new PlotSeries("2/3 supply", "V", PlotPanel.Voltages, times, [.. supply.Select(v => 2 * v / 3)], Dashed: true));
+            }
+            if (facts.LoadTransitions.Count > 0) series.Add(LoadSeries(facts, from, to));
+            AttributedInterval? iv = analysis.Intervals.FirstOrDefault(i => Math.Abs(i.Start - w.EventTime) < 1e-6 || (i.End is double e && Math.Abs(e - w.EventTime) < 1e-6));
+            string what = iv is null ? w.Labels[0].Label
+                : Math.Abs(iv.Start - w.EventTime) < 1e-6 ? $"lamp on ({ReportText.Cause(iv.Cause)})" : $"lamp off ({iv.EndedBy})";
+            plots.Add(new PlotData
+            {
+                Title = $"{request.Netlist.Name}: {what} at {ReportText.Clock(facts.Clock(w.EventTime))}",
+                Origin = facts.Origin,
+                TimeZone = facts.TimeZone,
+                From = from,
+                To = to,
+                Series = series,
+                Markers = [.. w.Labels.Select(l => new PlotMarker(l.Time, l.Label, Emphasis: iv is { Expected: false } && iv.Cause != Reporting.LoadCause.PowerUp))],
+                FileStem = $"zoom-{k:00}-{Slug(what)}",
+            });
+        }
+        return plots;
+    }
+
+    private static IEnumerable<(string Node, string Title)> Voltages(NodeRoles roles)
+    {
+        foreach (string s in roles.Sensor) yield return (s, $"V({s}) sensor");
+        if (roles.Trigger is string t) yield return (t, $"V({t}) trigger pin");
+        if (roles.Timing is string c && c != roles.Trigger) yield return (c, $"V({c}) timing capacitor");
+    }
+
+    private static void AddThirds(List<PlotSeries> series, NodeRoles roles, SimulationResult sim, double[] times)
+    {
+        if (roles.Supply is not string vcc || roles.Timing is null || sim.Trace(vcc) is not Trace tr || times.Length == 0) return;
+        double[] supply = [.. times.Select(tr.At)];
+        series.Add(new PlotSeries("1/3 supply", "V", PlotPanel.Voltages, times, [.. supply.Select(v => v / 3)], Dashed: true));
+        series.Add(new PlotSeries("2/3 supply", "V", PlotPanel.Voltages, times, [.. supply.Select(v => 2 * v / 3)], Dashed: true));
+    }
+
+    private static PlotSeries LuxSeries(RunFacts facts, LightProfile profile, double[] times, double from, double to)
+    {
+        // Sample at the trace times plus every known light edge in the window, so short events are drawn.
+        var t = new SortedSet<double>(times);
+        double b = from;
+        int guard = 0;
+        while ((b = profile.NextBreakpoint(b)) <= to && guard++ < 20000) t.Add(b);
+        foreach (LoadTransition x in facts.LoadTransitions)
+        {
+            if (x.Time >= from && x.Time <= to)
+            {
+                t.Add(x.Time);
+                t.Add(Math.Min(to, x.Time + 1e-6));
+            }
+        }
+        double[] ts = [.. t];
+        return new PlotSeries("illuminance at sensor", "lx", PlotPanel.Light, ts, [.. ts.Select(x => SensorLux(facts, x))]);
+    }
+
+    private static PlotSeries LoadSeries(RunFacts facts, double from, double to)
+    {
+        var ts = new List<double> { from };
+        var vs = new List<double> { LoadOn(facts, from) ? 1 : 0 };
+        foreach (LoadTransition x in facts.LoadTransitions)
+        {
+            if (x.Time <= from || x.Time >= to) continue;
+            ts.Add(x.Time);
+            vs.Add(x.On ? 1 : 0);
+        }
+        ts.Add(to);
+        vs.Add(vs[^1]);
+        return new PlotSeries("lamp on", "", PlotPanel.States, [.. ts], [.. vs]);
+    }
+
+    private static PlotSeries Slice(Trace tr, double from, double to, string title)
+    {
+        var ts = new List<double>();
+        var vs = new List<double>();
+        for (int i = 0; i < tr.Times.Count; i++)
+        {
+            if (tr.Times[i] < from || tr.Times[i] > to) continue;
+            ts.Add(tr.Times[i]);
+            vs.Add(tr.Values[i]);
+        }
+        return new PlotSeries(title, tr.Unit, PlotPanel.Voltages, [.. ts], [.. vs]);
+    }
+
+    private static void AddSun(List<PlotMarker> markers, RunFacts facts, NightWindow n)
+    {
+        void Add(DateTimeOffset? at, string label)
+        {
+            if (at is DateTimeOffset a) markers.Add(new PlotMarker((a - facts.Origin).TotalSeconds, label));
+        }
+        Add(n.Sunset, "sunset");
+        Add(n.CivilDusk, "civil dusk");
+        Add(n.CivilDawn, "civil dawn");
+        Add(n.Sunrise, "sunrise");
+    }
+
+    private static bool SameTimes(Trace tr, double[] times)
+    {
+        if (tr.Times.Count != times.Length) return false;
+        for (int i = 0; i < times.Length; i++)
+        {
+            if (tr.Times[i] != times[i]) return false;
+        }
+        return true;
+    }
+
+    private static string Slug(string text)
+    {
+        var chars = text.ToLowerInvariant().Select(c => char.IsAsciiLetterOrDigit(c) ? c : '-').ToArray();
+        string s = new string(chars);
+        while (s.Contains("--", StringComparison.Ordinal)) s = s.Replace("--", "-", StringComparison.Ordinal);
+        return s.Trim('-');
+    }
+}

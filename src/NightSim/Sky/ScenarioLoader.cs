@@ -1,0 +1,245 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using NightSim.Sky.Events;
+
+namespace NightSim.Sky;
+
+/// <summary>
+/// Reads a scenario JSON file (our format, netlists/scenario.schema.json). Comments and trailing commas are allowed.
+/// Every problem is collected with file, line:column, JSON path and a hint; nothing is thrown for bad input unless
+/// <see cref="LoadOrThrow"/> is used.
+/// </summary>
+public static class ScenarioLoader
+{
+    private static readonly string[] s_topLevel =
+        ["$schema", "name", "description", "site", "start", "nights", "seed", "sensor", "channels", "weather", "events", "lightLog"];
+
+    /// <summary>Loads <paramref name="path"/>; the scenario or null with the errors.</summary>
+    public static LightScenario? Load(string path, out IReadOnlyList<ScenarioError> errors, LightEventCatalog? catalog = null)
+    {
+        string name = Path.GetFileName(path);
+        byte[] bytes;
+        try
+        {
+            bytes = File.ReadAllBytes(path);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            errors = [new ScenarioError(path, "$", $"cannot read the file: {ex.Message}", "check the path")];
+            return null;
+        }
+        string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? Directory.GetCurrentDirectory();
+        return Parse(bytes, name, dir, out errors, catalog, path);
+    }
+
+    /// <summary>Loads <paramref name="path"/> or throws <see cref="ScenarioException"/> with every problem.</summary>
+    public static LightScenario LoadOrThrow(string path, LightEventCatalog? catalog = null)
+        => Load(path, out var errors, catalog) ?? throw new ScenarioException(errors);
+
+    /// <summary>Parses scenario JSON text.</summary>
+    /// <param name="fileName">Name used in messages.</param>
+    /// <param name="baseDirectory">Directory for relative light-log paths.</param>
+    public static LightScenario? Parse(string json, string fileName, string? baseDirectory, out IReadOnlyList<ScenarioError> errors,
+        LightEventCatalog? catalog = null)
+        => Parse(Encoding.UTF8.GetBytes(json), fileName, baseDirectory, out errors, catalog, null);
+
+    private static LightScenario? Parse(byte[] utf8, string fileName, string? baseDirectory, out IReadOnlyList<ScenarioError> errors,
+        LightEventCatalog? catalog, string? sourceFile)
+    {
+        catalog ??= LightEventCatalog.Default;
+        var locator = new JsonLocator(utf8);
+        var ctx = new ScenarioParseContext(fileName, locator, baseDirectory);
+        JsonDocument doc;
+        try
+        {
+            ReadOnlySpan<byte> span = utf8;
+            if (span.StartsWith((ReadOnlySpan<byte>)[0xEF, 0xBB, 0xBF])) span = span[3..];
+            doc = JsonDocument.Parse(span.ToArray(), new JsonDocumentOptions { CommentHandling = JsonCommentHandling.Skip, AllowTrailingCommas = true });
+        }
+        catch (JsonException ex)
+        {
+            int line = (int)(ex.LineNumber ?? -1) + 1, col = (int)(ex.BytePositionInLine ?? -1) + 1;
+            errors = [new ScenarioError(fileName, "$", $"not valid JSON: {FirstSentence(ex.Message)}", "check brackets, commas and quotes near this place", line, col)];
+            return null;
+        }
+        using (doc)
+        {
+            LightScenario? s = Read(doc.RootElement, ctx, catalog, sourceFile);
+            errors = ctx.Errors;
+            return errors.Count == 0 ? s : null;
+        }
+    }
+
+    private static string FirstSentence(string message)
+    {
+        int i = message.IndexOf(" Path:", StringComparison.Ordinal);
+        return i > 0 ? message[..i].Trim() : message.Trim();
+    }
+
+    private static LightScenario? Read(JsonElement root, ScenarioParseContext ctx, LightEventCatalog catalog, string? sourceFile)
+    {
+        if (!ctx.ExpectObject(root, "$")) return null;
+        ctx.CheckProperties(root, "$", s_topLevel);
+        string name = ctx.String(root, "$", "name") ?? Path.GetFileNameWithoutExtension(ctx.FileName);
+        string description = ctx.String(root, "$", "description") ?? "";
+
+        Site? site = ReadSite(root, ctx);
+
+        DateOnly start = default;
+        string? startText = ctx.String(root, "$", "start", required: true);
+        if (startText is not null && !DateOnly.TryParseExact(startText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out start))
+            ctx.Error("$.start", $"\"{startText}\" is not a date", "write the date of the first night as \"YYYY-MM-DD\"");
+        int nights = (int)(ctx.Integer(root, "$", "nights", min: 1, max: 3660) ?? 1);
+        long? seedValue = ctx.Integer(root, "$", "seed", min: 0);
+        ulong seed = seedValue is long sv ? (ulong)sv : LightScenario.DefaultSeed;
+
+        var channels = ReadChannels(root, ctx);
+        Weather weather = ReadWeather(root, ctx);
+
+        var events = new List<IEventDefinition>();
+        if (root.TryGetProperty("events", out JsonElement evs))
+        {
+            if (evs.ValueKind != JsonValueKind.Array) ctx.Error("$.events", "expected an array of events", "write \"events\": [ { \"kind\": \"headlights\", … } ]");
+            else
+            {
+                int i = 0;
+                foreach (JsonElement e in evs.EnumerateArray())
+                {
+                    string path = $"$.events[{i++}]";
+                    if (!ctx.ExpectObject(e, path)) continue;
+                    string? kind = ctx.String(e, path, "kind", required: true);
+                    if (kind is null) continue;
+                    EventParser? parser = catalog.Find(kind);
+                    if (parser is null)
+                    {
+                        ctx.Error($"{path}.kind", $"unknown event kind \"{kind}\"", $"known kinds: {string.Join(", ", catalog.Kinds)}");
+                        continue;
+                    }
+                    IEventDefinition? def = parser(e, path, ctx);
+                    if (def is null) continue;
+                    if (def.Channel is string ch && !channels.Any(c => c.Name == ch))
+                    {
+                        ctx.Error($"{path}.channel", $"unknown channel \"{ch}\"", $"channels: {string.Join(", ", channels.Select(c => c.Name))}");
+                        continue;
+                    }
+                    events.Add(def);
+                }
+            }
+        }
+
+        RecordedLightLog? log = null;
+        LightLogMode mode = LightLogMode.Replace;
+        bool atSensor = false;
+        var warnings = new List<ScenarioError>();
+        if (root.TryGetProperty("lightLog", out JsonElement ll) && ctx.ExpectObject(ll, "$.lightLog"))
+        {
+            ctx.CheckProperties(ll, "$.lightLog", "file", "mode", "timeZone", "atSensor");
+            string? file = ctx.String(ll, "$.lightLog", "file", required: true);
+            string modeText = ctx.String(ll, "$.lightLog", "mode") ?? "replace";
+            if (modeText == "add") mode = LightLogMode.Add;
+            else if (modeText != "replace") ctx.Error("$.lightLog.mode", $"\"{modeText}\" is not a log mode", "write \"replace\" or \"add\"");
+            string tzText = ctx.String(ll, "$.lightLog", "timeZone") ?? "local";
+            if (tzText is not ("local" or "utc")) ctx.Error("$.lightLog.timeZone", $"\"{tzText}\" is not a log time base", "write \"local\" (the site's zone) or \"utc\"");
+            atSensor = ctx.Bool(ll, "$.lightLog", "atSensor") ?? false;
+            if (file is not null && site is not null)
+            {
+                string full = Path.IsPathRooted(file) ? file : Path.Combine(ctx.BaseDirectory, file);
+                if (!File.Exists(full)) ctx.Error("$.lightLog.file", $"light log \"{file}\" not found", $"looked in {ctx.BaseDirectory}; paths are relative to the scenario file");
+                else
+                {
+                    log = RecordedLightLog.Parse(File.ReadAllText(full), file, site.TimeZone, tzText == "utc", out var logErrors);
+                    ctx.AddRange(logErrors);
+                    if (log is not null) warnings.AddRange(log.Warnings);
+                }
+            }
+        }
+
+        if (site is null || startText is null || ctx.Errors.Count > 0) return null;
+        return new LightScenario
+        {
+            Name = name, Description = description, Site = site, Start = start, Nights = nights,
+            Seed = seed, SeedGiven = seedValue is not null, Channels = channels, Weather = weather, Events = events,
+            LightLog = log, LightLogMode = mode, LightLogAtSensor = atSensor, SourceFile = sourceFile, Warnings = warnings,
+        };
+    }
+
+    private static Site? ReadSite(JsonElement root, ScenarioParseContext ctx)
+    {
+        if (!root.TryGetProperty("site", out JsonElement s))
+        {
+            ctx.Error("$", "missing required property \"site\"", "\"site\": { \"latitude\": 52.1, \"longitude\": 8.6, \"timeZone\": \"Europe/Berlin\" }");
+            return null;
+        }
+        if (!ctx.ExpectObject(s, "$.site")) return null;
+        ctx.CheckProperties(s, "$.site", "name", "latitude", "longitude", "timeZone", "elevation");
+        string siteName = ctx.String(s, "$.site", "name") ?? "site";
+        double? lat = ctx.Number(s, "$.site", "latitude", "deg", required: true, min: -90, max: 90);
+        double? lon = ctx.Number(s, "$.site", "longitude", "deg", required: true, min: -180, max: 180);
+        double elevation = ctx.Number(s, "$.site", "elevation", null) ?? 0.0;
+        string? tz = ctx.String(s, "$.site", "timeZone", required: true);
+        TimeZoneInfo? zone = null;
+        if (tz is not null)
+        {
+            if (Site.TryFindTimeZone(tz, out TimeZoneInfo z, out string? err)) zone = z;
+            else ctx.Error("$.site.timeZone", err!, "IANA zone names are case-sensitive, e.g. \"Europe/Berlin\"");
+        }
+        if (lat is null || lon is null || zone is null) return null;
+        return new Site(siteName, lat.Value, lon.Value, zone, elevation);
+    }
+
+    private static List<LightChannel> ReadChannels(JsonElement root, ScenarioParseContext ctx)
+    {
+        double exposure = 1.0;
+        if (root.TryGetProperty("sensor", out JsonElement sensor) && ctx.ExpectObject(sensor, "$.sensor"))
+        {
+            ctx.CheckProperties(sensor, "$.sensor", "exposure");
+            exposure = ctx.Number(sensor, "$.sensor", "exposure", null, min: 0, max: 10) ?? 1.0;
+        }
+        var list = new List<LightChannel> { new(LightScenario.DefaultChannel, exposure) };
+        if (root.TryGetProperty("channels", out JsonElement chans) && ctx.ExpectObject(chans, "$.channels"))
+        {
+            foreach (JsonProperty p in chans.EnumerateObject())
+            {
+                string path = $"$.channels.{p.Name}";
+                if (p.Name == LightScenario.DefaultChannel) { ctx.Error(path, "\"sensor\" is the default channel", "set its exposure under the top-level \"sensor\""); continue; }
+                if (!ctx.ExpectObject(p.Value, path)) continue;
+                ctx.CheckProperties(p.Value, path, "exposure");
+                double? e = ctx.Number(p.Value, path, "exposure", null, required: true, min: 0, max: 10);
+                if (e is not null) list.Add(new LightChannel(p.Name, e.Value));
+            }
+        }
+        return list;
+    }
+
+    private static Weather ReadWeather(JsonElement root, ScenarioParseContext ctx)
+    {
+        if (!root.TryGetProperty("weather", out JsonElement w) || !ctx.ExpectObject(w, "$.weather")) return Weather.Clear;
+        ctx.CheckProperties(w, "$.weather", "sky", "clouds", "moon", "moonLux", "floorLux");
+        double sky = 1.0;
+        if (w.TryGetProperty("sky", out JsonElement sk))
+        {
+            if (sk.ValueKind == JsonValueKind.String && !double.IsNaN(Weather.NamedSkyFactor(sk.GetString()!))) sky = Weather.NamedSkyFactor(sk.GetString()!);
+            else if (sk.ValueKind == JsonValueKind.Number && sk.GetDouble() >= 1.0) sky = sk.GetDouble();
+            else ctx.Error("$.weather.sky", $"{ScenarioParseContext.Describe(sk)} is not a sky", "write \"clear\", \"thin\", \"cloudy\", \"overcast\" or a factor ≥ 1 (10 = dark stratus)");
+        }
+        CloudDefinition? clouds = null;
+        if (w.TryGetProperty("clouds", out JsonElement c) && ctx.ExpectObject(c, "$.weather.clouds"))
+        {
+            ctx.CheckProperties(c, "$.weather.clouds", "perHour", "depth", "minutes");
+            double? perHour = ctx.Number(c, "$.weather.clouds", "perHour", null, required: true, min: 0);
+            double depth = ctx.Number(c, "$.weather.clouds", "depth", null, min: 0, max: 1) ?? 0.5;
+            double minutes = ctx.Number(c, "$.weather.clouds", "minutes", null, min: 0, minExclusive: true) ?? 10.0;
+            if (perHour is not null) clouds = new CloudDefinition(perHour.Value, depth, minutes);
+        }
+        double moon = 0.0;
+        if (w.TryGetProperty("moon", out JsonElement m))
+        {
+            if (m.ValueKind == JsonValueKind.True) moon = 0.2;
+            else if (m.ValueKind != JsonValueKind.False) ctx.Error("$.weather.moon", "expected true or false", "true = a high full Moon (0.2 lx); or give \"moonLux\"");
+        }
+        moon = ctx.Number(w, "$.weather", "moonLux", "lx", min: 0, max: 1) ?? moon;
+        double floor = ctx.Number(w, "$.weather", "floorLux", "lx", min: 0) ?? 0.0;
+        return new Weather(sky, clouds, moon, floor);
+    }
+}

@@ -1,0 +1,85 @@
+using NightSim.Sky;
+
+namespace NightSim.Tests.Sky;
+
+public sealed class IlluminanceModelTests
+{
+    [Theory]
+    // check-values §2 table: USNO Circular 171 model, Sun only, sky 1 [CALC from the published formula]; ±0.5 %.
+    [InlineData(60, 103000)]
+    [InlineData(30, 51320)]
+    [InlineData(10, 11230)]
+    [InlineData(5, 4252)]
+    [InlineData(2, 1946)]
+    [InlineData(0, 984.5)]
+    [InlineData(-1, 386.8)]
+    [InlineData(-2, 169.0)]
+    [InlineData(-3, 66.40)]
+    [InlineData(-4, 24.44)]
+    [InlineData(-5, 8.652)]
+    [InlineData(-6, 2.992)]
+    [InlineData(-8, 0.3447)]
+    [InlineData(-10, 0.03886)]
+    [InlineData(-12, 4.37e-3)]
+    public void SunLux_MatchesCircular171Table(double elevation, double lux)
+        => Assert.InRange(IlluminanceModel.SunLux(elevation), lux * 0.995, lux * 1.005);
+
+    [Fact]
+    public void NightFloor_AddsHalfMillilux()
+    {
+        // check-values §2: E(−12°) = 4.87e-3 lx with the 0.0005 lx floor.
+        Assert.InRange(IlluminanceModel.SkyLux(-12), 4.87e-3 * 0.99, 4.87e-3 * 1.01);
+        Assert.Equal(0.0005, IlluminanceModel.SkyLux(-40), 6);
+    }
+
+    [Fact]
+    public void EndOfCivilTwilight_InsidePublishedBand()
+    {
+        // AMS Glossary of Meteorology: end of civil twilight 2–3.5 lx (check-values Q4).
+        double e = IlluminanceModel.SkyLux(-6.0);
+        Assert.InRange(e, 2.0, 3.5);
+    }
+
+    [Fact]
+    public void Overcast_DividesExactly()
+    {
+        // USNO Circular 171: E(h, sky 10) = E(h, 1)/10.
+        foreach (double h in new[] { 20.0, 0.0, -3.0, -7.0 })
+            Assert.Equal(IlluminanceModel.SkyLux(h) / 10.0, IlluminanceModel.SkyLux(h, 10.0), 12);
+    }
+
+    [Fact]
+    public void RefractionSwitch_StepNearMinusFiveSixths_NotAssertedAtTheSwitch()
+    {
+        // check-values §2 / pitfall 9: E(−0.84°) = 435.7 lx; just above −5/6° the model is ≈ 662 lx (≈ 34 % step).
+        Assert.InRange(IlluminanceModel.SunLux(-0.84), 435.7 * 0.99, 435.7 * 1.01);
+        double above = IlluminanceModel.SunLux(-0.833);
+        Assert.InRange(above, 662 * 0.98, 662 * 1.02);
+        Assert.True(above / IlluminanceModel.SunLux(-0.84) > 1.3);
+    }
+
+    [Fact]
+    public void IncreasesWithElevation()
+    {
+        double prev = 0;
+        for (double h = -30; h <= 90; h += 0.1)
+        {
+            double e = IlluminanceModel.SkyLux(h);
+            Assert.True(e >= prev, $"decreases at {h}");
+            prev = e;
+        }
+    }
+
+    [Theory]
+    // check-values §2 (CALC): elevation where model + floor reaches a level; ±0.05°.
+    [InlineData(10.0, 1.0, -4.86)]
+    [InlineData(10.0, 2.0, -4.20)]
+    [InlineData(10.0, 3.0, -3.80)]
+    [InlineData(10.0, 10.0, -2.57)]
+    [InlineData(10.76, 1.0, -4.79)]
+    [InlineData(16.1, 1.0, -4.41)]
+    [InlineData(16.1, 10.0, -2.06)]
+    [InlineData(28.0, 1.0, -3.87)]
+    public void ElevationForLux_Table(double lux, double sky, double elevation)
+        => Assert.InRange(IlluminanceModel.ElevationForLux(lux, sky), elevation - 0.05, elevation + 0.05);
+}

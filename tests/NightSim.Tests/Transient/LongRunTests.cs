@@ -1,0 +1,89 @@
+using NightSim.Devices;
+using NightSim.Netlist;
+using NightSim.Transient;
+
+namespace NightSim.Tests.Transient;
+
+/// <summary>Long runs: breakpoints hit over a day, step budget, allocation-free steady stepping.</summary>
+public sealed class LongRunTests
+{
+    private static Circuit DayCircuit() => Circuit.FromDevices("day",
+    [
+        // 1 V baseline with a 1 µs, 5 V pulse every hour (first at 30 min), 10 ns edges.
+        new VoltageSource("V1", "V1", "in", "0", Waveform.Pulse(1, 5, 1800, 10e-9, 10e-9, 1e-6, 3600)),
+        // Slow RC, τ = 1 h.
+        new Resistor("R1", "R1", "in", "slow", 1e6),
+        new Capacitor("C1", "C1", "slow", "0", 3.6e-3),
+        // Fast RC, τ = 1 µs: sees each pulse.
+        new Resistor("R2", "R2", "in", "fast", 1e3),
+        new Capacitor("C2", "C2", "fast", "0", 1e-9),
+    ]);
+
+    /// <summary>Peak of the fast RC (τ = 1 µs) driven by the trapezoid 1 → 5 V (10 ns edges, 1 µs top), from the closed
+    /// form of an RC driven by a ramp u0 + s·t: v(t) = u0 + s(t − τ) + (v0 − u0 + sτ)e^(−t/τ), piece by piece.</summary>
+    private static double FastPeak()
+    {
+        const double tau = 1e-6, edge = 10e-9, top = 1e-6;
+        static double Ramp(double u0, double slope, double v0, double t, double tau) =>
+            u0 + slope * (t - tau) + (v0 - u0 + slope * tau) * Math.Exp(-t / tau);
+        double v = Ramp(1, 4 / edge, 1, edge, tau);     // rising edge
+        v = Ramp(5, 0, v, top, tau);                    // top
+        double peak = v;
+        for (int k = 1; k <= 10_000; k++) peak = Math.Max(peak, Ramp(5, -4 / edge, v, edge * k / 10_000, tau)); // falling edge
+        return peak;
+    }
+
+    [Fact]
+    public void A_Day_With_Hourly_1us_Pulses_Hits_Every_Pulse_In_Under_20000_Steps()
+    {
+        var result = TransientSolver.Run(DayCircuit(), 86400, TransientOptions.Default);
+        Assert.True(result.Succeeded, result.Failure?.ToString());
+        Assert.True(result.Statistics.AcceptedSteps < 20_000, $"{result.Statistics.AcceptedSteps} accepted steps");
+        var input = result.Trace("in")!;
+        var fast = result.Trace("fast")!;
+        var slow = result.Trace("slow")!;
+        for (int hour = 0; hour < 24; hour++)
+        {
+            double t0 = hour * 3600.0, t1 = t0 + 3600.0;
+            double maxIn = double.MinValue, maxFast = double.MinValue;
+            for (int k = 0; k < input.Times.Count; k++)
+                if (input.Times[k] >= t0 && input.Times[k] < t1) maxIn = Math.Max(maxIn, input.Values[k]);
+            for (int k = 0; k < fast.Times.Count; k++)
+                if (fast.Times[k] >= t0 && fast.Times[k] < t1) maxFast = Math.Max(maxFast, fast.Values[k]);
+            Assert.True(maxIn >= 5 - 1e-9, $"hour {hour}: pulse top not reached ({maxIn} V)");
+            // The peak falls inside the 10 ns falling edge; the trace holds accepted points, so allow 5 mV (0.15 %).
+            Assert.True(Math.Abs(maxFast - FastPeak()) <= 5e-3, $"hour {hour}: fast RC peak {maxFast} V, exact {FastPeak()} V");
+        }
+        // Slow RC: 1 − e^(−t/τ) from power-up (the 1 ms supply ramp delays it by 0.5 ms; pulses add ≈ 1e-9 V each).
+        foreach (double t in new[] { 3600.0, 7200.0, 86400.0 })
+        {
+            double exact = 1 - Math.Exp(-(t - 0.5e-3) / 3600);
+            Assert.True(Math.Abs(slow.At(t) - exact) <= 1e-4, $"slow RC at {t} s: {slow.At(t)} V, exact {exact} V");
+        }
+    }
+
+    [Fact]
+    public void Steady_Steps_Allocate_Nothing()
+    {
+        // A nonlinear circuit with an event source, settled, stepping at h_max; 1 000 accepted steps must allocate 0 bytes
+        // (GC.GetAllocatedBytesForCurrentThread; the hot loop uses preallocated arrays only).
+        var circuit = Circuit.FromDevices("steady",
+        [
+            new VoltageSource("V1", "V1", "vcc", "0", Waveform.Dc(12)),
+            new Resistor("R1", "R1", "vcc", "b", 100e3),
+            new Capacitor("C1", "C1", "b", "0", 10e-6, leakageCurrent: 1e-9),
+            new Bjt("Q1", "Q1", "c", "b", "0", earlyVoltage: 75, cje: 10e-12, cjc: 4e-12),
+            new Resistor("R2", "R2", "vcc", "c", 4.7e3),
+            new Diode("D1", "D1", "c", "vcc", junctionCapacitance: 2e-12),
+            new Switch("S1", "S1", "c", "0", 0.1, 1e9, false),
+        ]);
+        var solver = new TransientSolver(circuit, TransientOptions.Default);
+        solver.Begin(1e9);
+        for (int i = 0; i < 2000; i++) Assert.True(solver.Advance());
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        for (int i = 0; i < 1000; i++) solver.Advance();
+        long allocated = GC.GetAllocatedBytesForCurrentThread() - before;
+        Assert.Equal(0, allocated);
+        Assert.True(solver.Statistics.AcceptedSteps >= 3000);
+    }
+}
