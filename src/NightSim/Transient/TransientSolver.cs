@@ -627,7 +627,10 @@ public sealed partial class TransientSolver
         {
             bool branch = _circuit.Kinds[i] == UnknownKind.Branch;
             _atol[i] = branch ? _options.CurrentTolerance : _options.VoltageTolerance;
-            _inNorm[i] = !branch || rowHasCharge[i];
+            // Only unknowns that carry state (a row with charge: capacitor nodes, inductor currents) are in the error
+            // norm. An algebraic node (no capacitance) follows the states through Newton; its value can change as fast
+            // as a saturating junction, and holding it to a truncation-error bound stalls the step at h_min.
+            _inNorm[i] = rowHasCharge[i];
             _newtonAtol[i] = 0.1 * _atol[i];
         }
     }
