@@ -34,7 +34,7 @@ public static class Timer555
     private static readonly ParameterSpec s_thresholdOffset = ParameterSpec.Number("thresholdOffset", "V", "Threshold comparator offset (threshold spread)") with { Default = 0.0, Min = -10, Max = 10 };
     private static readonly ParameterSpec s_triggerOffset = ParameterSpec.Number("triggerOffset", "V", "Trigger comparator offset: fires when trigger < control/2 − offset") with { Default = 0.0, Min = -10, Max = 10 };
     private static readonly ParameterSpec s_hysteresis = ParameterSpec.Number("hysteresis", "V", "Hysteresis of the internal comparators") with { Default = 1e-3, Min = 0, Max = 1 };
-    private static readonly ParameterSpec s_transition = ParameterSpec.Number("transition", "s", "Transition time of the internal comparators, latch and output") with { Default = 100e-9, Min = 1e-12, Max = 1e-3 };
+    private static readonly ParameterSpec s_transition = ParameterSpec.Number("transition", "s", "Transition time of the internal comparators, latch and output") with { Default = 1e-6, Min = 1e-12, Max = 1e-3 };
 
     /// <summary>Defaults of one family.</summary>
     private sealed record Family(double ThresholdCurrent, double TriggerCurrent, double ResetCurrent, double ResetThreshold,
