@@ -109,7 +109,7 @@ public sealed class Switch : Device, IEventSource
 
     public override double NextBreakpoint(double time)
     {
-        double after = time + 1e-12 * Math.Max(1.0, Math.Abs(time));
+        double after = time + 1e-15 * Math.Max(1.0, Math.Abs(time));
         foreach (double t in _times)
         {
             if (t > after) return t;

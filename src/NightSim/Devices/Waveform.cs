@@ -175,10 +175,11 @@ public sealed class Waveform
     }
 
     /// <summary>The first corner strictly after <paramref name="time"/> (seconds), +∞ if none. Corners within a relative
-    /// 1e-12 of <paramref name="time"/> count as reached (so asking again at a landed corner moves on).</summary>
+    /// 1e-15 (≈ 4 ulp) of <paramref name="time"/> count as reached (so asking again at a landed corner moves on; a
+    /// coarser tolerance would skip corners a few ns ahead of a step ending late in a day).</summary>
     public double NextBreakpoint(double time)
     {
-        double after = time + 1e-12 * Math.Max(1.0, Math.Abs(time));
+        double after = time + 1e-15 * Math.Max(1.0, Math.Abs(time));
         switch (Shape)
         {
             case WaveformShape.Pulse:

@@ -15,6 +15,10 @@ public sealed class SolverStatistics
     /// <summary>Newton iterations (one linear solve each).</summary>
     public long NewtonIterations { get; internal set; }
 
+    /// <summary>Steps accepted at the smallest step although the error test failed (time resolution late in very long
+    /// runs, or an edge sharper than h_min); 0 in a healthy run.</summary>
+    public long ForcedSteps { get; internal set; }
+
     /// <summary>Numeric LU factorisations.</summary>
     public long Factorizations { get; internal set; }
 

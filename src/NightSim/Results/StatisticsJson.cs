@@ -17,6 +17,7 @@ public static class StatisticsJson
         w.WriteNumber("acceptedSteps", s.AcceptedSteps);
         w.WriteNumber("rejectedSteps", s.RejectedSteps);
         w.WriteNumber("newtonFailures", s.NewtonFailures);
+        w.WriteNumber("forcedSteps", s.ForcedSteps);
         w.WriteNumber("newtonIterations", s.NewtonIterations);
         w.WriteNumber("factorizations", s.Factorizations);
         w.WriteNumber("pivotAnalyses", s.PivotAnalyses);

@@ -21,9 +21,9 @@ public sealed class LongRunTests
 
     /// <summary>Peak of the fast RC (τ = 1 µs) driven by the trapezoid 1 → 5 V (10 ns edges, 1 µs top), from the closed
     /// form of an RC driven by a ramp u0 + s·t: v(t) = u0 + s(t − τ) + (v0 − u0 + sτ)e^(−t/τ), piece by piece.</summary>
-    private static double FastPeak()
+    private static double FastPeak(double edge = 10e-9)
     {
-        const double tau = 1e-6, edge = 10e-9, top = 1e-6;
+        const double tau = 1e-6, top = 1e-6;
         static double Ramp(double u0, double slope, double v0, double t, double tau) =>
             u0 + slope * (t - tau) + (v0 - u0 + slope * tau) * Math.Exp(-t / tau);
         double v = Ramp(1, 4 / edge, 1, edge, tau);     // rising edge
@@ -39,6 +39,8 @@ public sealed class LongRunTests
         var result = TransientSolver.Run(DayCircuit(), 86400, TransientOptions.Default);
         Assert.True(result.Succeeded, result.Failure?.ToString());
         Assert.True(result.Statistics.AcceptedSteps < 20_000, $"{result.Statistics.AcceptedSteps} accepted steps");
+        // Every corner landed on: 4 per pulse, plus the end of the supply ramp and the stop time.
+        Assert.True(result.Statistics.Breakpoints >= 24 * 4 + 2, $"{result.Statistics.Breakpoints} breakpoints landed");
         var input = result.Trace("in")!;
         var fast = result.Trace("fast")!;
         var slow = result.Trace("slow")!;
@@ -60,6 +62,45 @@ public sealed class LongRunTests
             double exact = 1 - Math.Exp(-(t - 0.5e-3) / 3600);
             Assert.True(Math.Abs(slow.At(t) - exact) <= 1e-4, $"slow RC at {t} s: {slow.At(t)} V, exact {exact} V");
         }
+    }
+
+    [Fact]
+    public void A_Pulse_One_Year_In_Is_Resolved_As_Well_As_One_At_The_Start()
+    {
+        // At t ≈ 3.15e7 s one ulp of a double is 3.7 ns: the 100 ns edges and the 1 µs pulse must still come out as
+        // at t = 0 (time is landed on by assignment and steps are carried, never differenced; numerics.md §3).
+        double year = 365.25 * 86400;
+        double Peak(double delay)
+        {
+            var c = Circuit.FromDevices("late",
+            [
+                new VoltageSource("V1", "V1", "in", "0", Waveform.Pulse(1, 5, delay, 100e-9, 100e-9, 1e-6, double.PositiveInfinity)),
+                new Resistor("R2", "R2", "in", "fast", 1e3),
+                new Capacitor("C2", "C2", "fast", "0", 1e-9),
+            ]);
+            var r = TransientSolver.Run(c, delay + 5e-6, TransientOptions.Default with { MaxStep = 1e7 });
+            Assert.True(r.Succeeded, r.Failure?.ToString());
+            return r.Trace("fast")!.Max;
+        }
+        double early = Peak(1.0), late = Peak(year);
+        Assert.True(Math.Abs(early - FastPeak(100e-9)) <= 5e-3, $"early peak {early} V, exact {FastPeak(100e-9)} V");
+        Assert.True(Math.Abs(late - FastPeak(100e-9)) <= 5e-3, $"late peak {late} V, exact {FastPeak(100e-9)} V");
+    }
+
+    [Fact]
+    public void Compensated_Time_Does_Not_Drift_Over_A_Year_Of_Steps()
+    {
+        // 1e6 steps of 31.5576 s from 0 reach exactly one year of 365.25 d (a plain double sum drifts by ≈ 1e-7 s).
+        var time = new SimTime();
+        double h = 365.25 * 86400 / 1e6, plain = 0;
+        for (int k = 0; k < 1_000_000; k++)
+        {
+            time.Advance(h);
+            plain += h;
+        }
+        double exact = 1e6 * h;
+        Assert.True(Math.Abs(time.Value - exact) <= 4e-9, $"compensated error {time.Value - exact:E3} s");
+        Assert.True(Math.Abs(time.Value - exact) <= Math.Abs(plain - exact));
     }
 
     [Fact]
