@@ -83,6 +83,18 @@ public sealed class Timer555Tests
         Assert.Equal(0.5e-6, bipolar.OfType<BiasCurrent>().Single(b => b.Name == "U1.trigger-current").Current, 15);
     }
 
+    [Fact]
+    public void Effective_Parameters_Follow_The_Variant_Unless_Overridden()
+    {
+        var bipolar = BlockBench.Part("U1", "timer-555", s_pins, new() { ["triggerCurrent"] = 1e-6 }, new() { ["variant"] = "bipolar" });
+        Assert.Equal(30e-9, Timer555.EffectiveNumber(bipolar, "thresholdCurrent"));
+        Assert.Equal(1e-6, Timer555.EffectiveNumber(bipolar, "triggerCurrent"));
+        Assert.Equal(1e-6, Timer555.EffectiveNumber(bipolar, "transition"));
+        var cmos = BlockBench.Part("U2", "timer-555", s_pins);
+        Assert.Equal(10e-12, Timer555.EffectiveNumber(cmos, "thresholdCurrent"));
+        Assert.Throws<KeyNotFoundException>(() => Timer555.EffectiveNumber(cmos, "nonsense"));
+    }
+
     // One-shot width t_w = ln 3 · R · C (check-values §6, textbook 555 formula; Q7), within 0.2 % for an ideal-parameter
     // timer, R from 10 kΩ to 10 MΩ and C from 1 nF to 3300 µF. Width = latch set → latch reset.
     [Theory]
