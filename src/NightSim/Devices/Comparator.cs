@@ -39,7 +39,7 @@ public sealed class Comparator : Device, IEventSource, ILogicLevel
 {
     private static readonly ParameterSpec s_hysteresis = ParameterSpec.Number("hysteresis", "V", "Full hysteresis width (thresholds at offset ± half of it)") with { Default = 1e-3, Min = 0, Max = 100 };
     private static readonly ParameterSpec s_offset = ParameterSpec.Number("offset", "V", "Switching point: output high when V+ − V− exceeds it") with { Default = 0.0, Min = -1000, Max = 1000 };
-    private static readonly ParameterSpec s_output = ParameterSpec.Word("output", "Output stage", "push-pull", "open-collector") with { DefaultText = "push-pull" };
+    private static readonly ParameterSpec s_output = ParameterSpec.Word("outputType", "Output stage", "push-pull", "open-collector") with { DefaultText = "push-pull" };
     private static readonly ParameterSpec s_outputResistance = ParameterSpec.Number("outputResistance", "Ω", "Output resistance (open collector: when on)") with { Default = 100.0, Min = 1e-3, Max = 1e9 };
     private static readonly ParameterSpec s_offResistance = ParameterSpec.Number("offResistance", "Ω", "Open-collector output resistance when off") with { Default = 1e9, Min = 1.0, Max = 1e15 };
     private static readonly ParameterSpec s_delay = ParameterSpec.Number("delay", "s", "Response delay from input crossing to output change (inertial)") with { Default = 0.0, Min = 0, Max = 1e4 };

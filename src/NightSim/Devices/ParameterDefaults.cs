@@ -14,4 +14,9 @@ public static class ParameterDefaults
     /// <summary>The word, or the spec's default text ("" when none).</summary>
     public static string TextOrDefault(this PartParameters parameters, ParameterSpec spec) =>
         parameters.Text(spec.Name, spec.DefaultText ?? "");
+
+    /// <summary>The node an optional pin connects to, or null when the netlist left it out (the loader then gives it
+    /// the private node "&lt;id&gt;.&lt;pin&gt;", which nothing else touches).</summary>
+    public static string? ConnectedPin(this PartDefinition part, string pin) =>
+        part.Pins.TryGetValue(pin, out string? node) && node != part.Id + "." + pin ? node : null;
 }

@@ -126,9 +126,9 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         var contacts = new List<RelayContact>();
         foreach (string suffix in (string[])["", "2"])
         {
-            if (!part.Pins.TryGetValue("com" + suffix, out string? com)) continue;
-            if (part.Pins.TryGetValue("no" + suffix, out string? no)) contacts.Add(new RelayContact("no" + suffix, com, no, false));
-            if (part.Pins.TryGetValue("nc" + suffix, out string? nc)) contacts.Add(new RelayContact("nc" + suffix, com, nc, true));
+            if (part.ConnectedPin("com" + suffix) is not string com) continue;
+            if (part.ConnectedPin("no" + suffix) is string no) contacts.Add(new RelayContact("no" + suffix, com, no, false));
+            if (part.ConnectedPin("nc" + suffix) is string nc) contacts.Add(new RelayContact("nc" + suffix, com, nc, true));
         }
         string load = p.Text(s_load.Name);
         var settings = new RelaySettings(
@@ -154,8 +154,8 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
             yield return "dropOut must be below pullIn (a relay releases at a lower coil voltage than it operates); typical 12 V relay: pullIn 9 V, dropOut 1.2 V";
         foreach (string suffix in (string[])["", "2"])
         {
-            bool hasCom = part.Pins.ContainsKey("com" + suffix);
-            bool hasSide = part.Pins.ContainsKey("no" + suffix) || part.Pins.ContainsKey("nc" + suffix);
+            bool hasCom = part.ConnectedPin("com" + suffix) is not null;
+            bool hasSide = part.ConnectedPin("no" + suffix) is not null || part.ConnectedPin("nc" + suffix) is not null;
             if (hasCom != hasSide)
                 yield return $"contact set 'com{suffix}' needs its common pin and at least one of 'no{suffix}', 'nc{suffix}'";
         }

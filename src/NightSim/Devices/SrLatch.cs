@@ -44,7 +44,7 @@ public sealed class SrLatch : Device, IEventSource, ILogicLevel
         Create = part =>
         [
             new SrLatch(part.Id, part.Id, part.Node("set"), part.Node("reset"), null, part.Node("q"),
-                part.Pins.TryGetValue("notQ", out string? nq) ? nq : null, part.Node("vcc"), part.Node("gnd"),
+                part.ConnectedPin("notQ"), part.Node("vcc"), part.Node("gnd"),
                 new SrLatchSettings(
                     ResetDominant: part.Parameters.TextOrDefault(s_priority) != "set",
                     Hysteresis: part.Parameters.NumberOrDefault(s_hysteresis),

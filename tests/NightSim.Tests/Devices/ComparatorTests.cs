@@ -140,4 +140,19 @@ public sealed class ComparatorTests
         Assert.Single(up);
         Assert.Equal(5.0005 + 0.25, up[0], 1e-6);
     }
+
+    [Fact]
+    public void Kind_Reads_Parameters_With_Defaults()
+    {
+        var pins = new Dictionary<string, string> { ["plus"] = "p", ["minus"] = "m", ["output"] = "o", ["vcc"] = "v", ["gnd"] = "0" };
+        var c = (Comparator)Assert.Single(Comparator.Kind.Create(BlockBench.Part("X1", "comparator", pins,
+            new() { ["hysteresis"] = 0.05, ["delay"] = 2e-3 }, new() { ["outputType"] = "open-collector" })));
+        Assert.Equal(0.05, c.Settings.Hysteresis);
+        Assert.Equal(2e-3, c.Settings.Delay);
+        Assert.True(c.Settings.OpenCollector);
+        Assert.Equal(1e-6, c.Settings.Transition);      // default
+        Assert.Equal(100.0, c.Settings.OutputResistance);
+        Assert.Equal(2, c.EventCount);
+        Assert.Contains(Comparator.Kind, PartCatalog.All);
+    }
 }

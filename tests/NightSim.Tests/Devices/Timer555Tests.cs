@@ -83,6 +83,18 @@ public sealed class Timer555Tests
         Assert.Equal(0.5e-6, bipolar.OfType<BiasCurrent>().Single(b => b.Name == "U1.trigger-current").Current, 15);
     }
 
+    [Fact]
+    public void Effective_Parameters_Follow_The_Variant_Unless_Overridden()
+    {
+        var bipolar = BlockBench.Part("U1", "timer-555", s_pins, new() { ["triggerCurrent"] = 1e-6 }, new() { ["variant"] = "bipolar" });
+        Assert.Equal(30e-9, Timer555.EffectiveNumber(bipolar, "thresholdCurrent"));
+        Assert.Equal(1e-6, Timer555.EffectiveNumber(bipolar, "triggerCurrent"));
+        Assert.Equal(1e-6, Timer555.EffectiveNumber(bipolar, "transition"));
+        var cmos = BlockBench.Part("U2", "timer-555", s_pins);
+        Assert.Equal(10e-12, Timer555.EffectiveNumber(cmos, "thresholdCurrent"));
+        Assert.Throws<KeyNotFoundException>(() => Timer555.EffectiveNumber(cmos, "nonsense"));
+    }
+
     // One-shot width t_w = ln 3 · R · C (check-values §6, textbook 555 formula; Q7), within 0.2 % for an ideal-parameter
     // timer, R from 10 kΩ to 10 MΩ and C from 1 nF to 3300 µF. Width = latch set → latch reset.
     [Theory]
@@ -138,6 +150,33 @@ public sealed class Timer555Tests
         SimulationResult r = BlockBench.Run(OneShot(10e6, 1e-6, 15.0, Ideal(new() { ["thresholdCurrent"] = 0.25e-6 }), 2e-3, 1e-6), 30.0, Steps(16.0));
         var (set, reset) = Pulse(r);
         Assert.Equal(Math.Log(5.0) * 10.0, reset - set, 10.0 * Math.Log(5.0) * 2e-3);
+    }
+
+    // Bipolar defaults (check-values §6, common practice): 30 nA into THRES and ≈ 16 nA of discharge leakage
+    // (500 MΩ) drain the timing capacitor: V∞ = (V/R − I)/(1/R + 1/R_L), τ = C·(R ∥ R_L), t = τ·ln(V∞/(V∞ − 2V/3))
+    // (check-values §6 drain and leakage-resistance formulas combined) = 110.55 s for 1 MΩ, 100 µF, 12 V.
+    [Fact]
+    public void Bipolar_Input_Current_And_Discharge_Leakage_Lengthen_The_Pulse()
+    {
+        var devices = new List<Device>
+        {
+            BlockBench.Dc("VCC", "vcc", 12.0),
+            BlockBench.Dc("VR", "rst", 12.0),
+            TriggerPulse(12.0, 2e-3, 1e-3),
+            new Resistor("RT", "RT", "vcc", "tc", 1e6),
+            new Capacitor("CT", "CT", "tc", "0", 100e-6),
+            new Resistor("RD", "RD", "dis", "tc", 1e-3),
+            new Resistor("RL", "RL", "out", "0", 10e3),
+        };
+        devices.AddRange(Timer(new() { ["dischargeResistance"] = 0.01 }, "bipolar"));
+        SimulationResult r = BlockBench.Run(devices, 200.0, Steps(110.0));
+        var (set, reset) = Pulse(r);
+        double g = 1.0 / 1e6 + 1.0 / 500e6;
+        double vInf = (12.0 / 1e6 - 30e-9) / g;
+        double expected = 100e-6 / g * Math.Log(vInf / (vInf - 8.0));
+        Assert.Equal(110.55, expected, 0.01);
+        Assert.Equal(expected, reset - set, expected * 2e-3);
+        Assert.True(reset - set > Math.Log(3.0) * 100.0 * 1.005, "the drain must lengthen the pulse beyond ln 3·RC");
     }
 
     // Astable: f = 1.44/((Ra + 2Rb)·C) within 1 % (check-values §6, textbook); 1 kΩ / 10 kΩ / 100 nF → 685.7 Hz

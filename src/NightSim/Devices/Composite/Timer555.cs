@@ -34,7 +34,7 @@ public static class Timer555
     private static readonly ParameterSpec s_thresholdOffset = ParameterSpec.Number("thresholdOffset", "V", "Threshold comparator offset (threshold spread)") with { Default = 0.0, Min = -10, Max = 10 };
     private static readonly ParameterSpec s_triggerOffset = ParameterSpec.Number("triggerOffset", "V", "Trigger comparator offset: fires when trigger < control/2 − offset") with { Default = 0.0, Min = -10, Max = 10 };
     private static readonly ParameterSpec s_hysteresis = ParameterSpec.Number("hysteresis", "V", "Hysteresis of the internal comparators") with { Default = 1e-3, Min = 0, Max = 1 };
-    private static readonly ParameterSpec s_transition = ParameterSpec.Number("transition", "s", "Transition time of the internal comparators, latch and output") with { Default = 100e-9, Min = 1e-12, Max = 1e-3 };
+    private static readonly ParameterSpec s_transition = ParameterSpec.Number("transition", "s", "Transition time of the internal comparators, latch and output") with { Default = 1e-6, Min = 1e-12, Max = 1e-3 };
 
     /// <summary>Defaults of one family.</summary>
     private sealed record Family(double ThresholdCurrent, double TriggerCurrent, double ResetCurrent, double ResetThreshold,
@@ -60,6 +60,32 @@ public static class Timer555
         ],
         Create = Expand,
     };
+
+    /// <summary>The value a timer part actually uses for a numeric parameter (SI): the netlist's override, else the
+    /// family default of its variant, else the spec default. For analysers (closed-form on-time, leakage margin).</summary>
+    /// <exception cref="KeyNotFoundException">Not a numeric parameter of this kind.</exception>
+    public static double EffectiveNumber(PartDefinition part, string name)
+    {
+        if (part.Parameters.OptionalNumber(name) is double given) return given;
+        Family f = part.Parameters.TextOrDefault(s_variant) == "bipolar" ? s_bipolar : s_cmos;
+        return name switch
+        {
+            "thresholdCurrent" => f.ThresholdCurrent,
+            "triggerCurrent" => f.TriggerCurrent,
+            "resetCurrent" => f.ResetCurrent,
+            "resetThreshold" => f.ResetThreshold,
+            "dischargeResistance" => f.DischargeResistance,
+            "dischargeOffResistance" => f.DischargeOffResistance,
+            "supplyCurrent" => f.SupplyCurrent,
+            "dividerResistance" => f.DividerResistance,
+            "outputDropHigh" => f.OutputDropHigh,
+            "outputDropLow" => f.OutputDropLow,
+            "outputResistanceHigh" => f.OutputResistanceHigh,
+            "outputResistanceLow" => f.OutputResistanceLow,
+            _ => Kind.Parameters.FirstOrDefault(s => s.Name == name)?.Default
+                 ?? throw new KeyNotFoundException($"timer-555 has no numeric parameter '{name}'"),
+        };
+    }
 
     private static ParameterSpec Current(string name, string description) =>
         ParameterSpec.Number(name, "A", description) with { Min = 0, Max = 0.01 };

@@ -12,7 +12,7 @@ public sealed class LightInput
 {
     public static readonly ParameterSpec ChannelSpec = new("channel", ParameterType.Text, "", "Light channel the sensor reads") { DefaultText = "sensor" };
     public static readonly ParameterSpec GainSpec = ParameterSpec.Number("lightGain", "", "Factor on the channel's illuminance (aim, shade, lens)") with { Default = 1.0, Min = 0, Max = 1e3 };
-    public static readonly ParameterSpec LuxSpec = ParameterSpec.Number("lux", "lx", "Constant illuminance when the run has no light signal") with { Min = 0, Max = 2e5 };
+    public static readonly ParameterSpec LuxSpec = ParameterSpec.Number("lux", "lx", "Constant illuminance when the run has no light signal") with { Min = 0, Max = 2e5, ExclusiveGroup = "light" };
     public static readonly ParameterSpec LuxPwlSpec = ParameterSpec.PointList("luxPwl", "lx", "Piecewise-linear illuminance [[t, lux], …] when the run has no light signal") with { ExclusiveGroup = "light" };
 
     /// <summary>The four parameters every light sensor accepts.</summary>

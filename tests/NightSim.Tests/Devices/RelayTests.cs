@@ -1,0 +1,152 @@
+using NightSim.Devices;
+using NightSim.Results;
+using NightSim.Transient;
+
+namespace NightSim.Tests.Devices;
+
+public sealed class RelayTests
+{
+    // Generic 12 V relay class (check-values §8, common practice): 400 Ω, pull-in 9.0 V, drop-out 1.2 V, operate
+    // ≤ 10 ms, release ≤ 5 ms; coil inductance 0.5 H from memory. These are the defaults of RelaySettings.
+    private static readonly RelaySettings s_class = new();
+
+    private static Relay Make(RelaySettings? settings = null, string? load = null) =>
+        new("K1", "K1", "c", "0",
+        [
+            new RelayContact("no", "com", "no", false),
+            new RelayContact("nc", "com", "nc", true),
+        ],
+        (settings ?? s_class) with { LoadName = load, LoadPower = load is null ? 0 : 60.0 });
+
+    [Fact]
+    public void Coil_And_Contacts_Stamp_Their_Jacobians()
+    {
+        var h = new StampHarness("c", "com", "no", "nc");
+        Relay k = Make();
+        k.Setup(h);
+        k.PowerUp();
+        double[] x = [12.0, 5.0, 1.0, 2.0, 0.02];
+        LoadContext at = h.Load(k, x);
+        Assert.Equal(12.0 - 400.0 * 0.02, at.J[4], 12);          // branch: V_a − V_b − R·i
+        Assert.Equal(-0.5 * 0.02, at.Q[4], 12);                   // −L·i
+        Assert.Equal((5.0 - 2.0) / 0.05, at.J[3] * -1, 6);        // nc contact closed at power-up
+        h.AssertJacobians(k, x);
+    }
+
+    [Fact]
+    public void Pull_In_And_Drop_Out_Act_On_Coil_Current_With_Travel_Times()
+    {
+        var h = new StampHarness("c", "com", "no", "nc");
+        Relay k = Make();
+        k.Setup(h);
+        k.PowerUp();
+        var ctx = new LoadContext(h.Unknowns, h.SlotCount) { Time = 1.0 };
+        var sink = new BlockBench.Sink();
+        ctx.X[4] = 9.0 / 400.0 - 1e-6;
+        Assert.True(k.EventValue(0, ctx) < 0);
+        ctx.X[4] = 9.0 / 400.0 + 1e-6;
+        Assert.True(k.EventValue(0, ctx) > 0);
+        k.OnEvent(0, ctx, sink);
+        Assert.True(k.IsEnergised);
+        Assert.False(k.IsOperated);
+        Assert.Equal([1.003], sink.Breakpoints);
+        Assert.True(k.EventValue(0, ctx) < 0);                    // now waits for drop-out at 3 mA
+        ctx.Time = 1.003;
+        Assert.True(k.EventValue(1, ctx) >= 0);
+        k.OnEvent(1, ctx, sink);
+        Assert.True(k.IsOperated);
+        Assert.True(k.IsContactClosed(0));
+        Assert.False(k.IsContactClosed(1));
+        Assert.Equal(["K1 coil released->pulled in", "K1 contact no open->closed", "K1 contact nc closed->open"], sink.Changes);
+        ctx.X[4] = 1.2 / 400.0 - 1e-6;
+        Assert.True(k.EventValue(0, ctx) > 0);
+    }
+
+    // Slow coil ramp 0 → 12 V → 0 at 1 V/s: the coil current lags the voltage by τ = L/R = 1.25 ms, so it reaches the
+    // pull-in current 9.0 V/400 Ω at t = 9 s + τ and falls to the drop-out current 1.2 V/400 Ω at t = 22.8 s + τ
+    // (ramp response of an R-L, circuit theory); contacts follow after the operate (3 ms) and release (2 ms) travel.
+    [Fact]
+    public void Slow_Coil_Ramp_Pulls_In_At_Pull_In_And_Drops_At_Drop_Out()
+    {
+        const double tau = 0.5 / 400.0;
+        SimulationResult r = BlockBench.Run(
+        [
+            BlockBench.Pwl("VC", "c", (0, 0), (12, 12), (24, 0)),
+            BlockBench.Dc("VS", "com", 12.0),
+            new Resistor("RNO", "RNO", "no", "0", 1e3),
+            new Resistor("RNC", "RNC", "nc", "0", 1e3),
+            Make(load: "lamp"),
+        ], 26.0);
+        List<DiscreteEvent> coil = r.Events.Where(e => e.Signal == "coil").ToList();
+        Assert.Equal(2, coil.Count);
+        Assert.Equal(9.0 + tau, coil[0].Time, 1e-5);
+        Assert.Equal("pulled in", coil[0].To);
+        Assert.Equal(22.8 + tau, coil[1].Time, 1e-5);
+        Assert.Equal("released", coil[1].To);
+        Assert.Equal(9.0 + tau + 3e-3, Assert.Single(BlockBench.Times(r, "K1", "contact no", "closed")), 1e-5);
+        Assert.Equal(22.8 + tau + 2e-3, Assert.Single(BlockBench.Times(r, "K1", "contact no", "open")), 1e-5);
+        Assert.Single(BlockBench.Times(r, "K1", "load lamp", "on"));
+        Assert.Single(BlockBench.Times(r, "K1", "load lamp", "off"));
+        // Contacts: no closed between, nc closed outside (12 V through 0.05 Ω into 1 kΩ).
+        Assert.Equal(12.0, r.Trace("no")!.At(15.0), 1e-2);
+        Assert.Equal(0.0, r.Trace("nc")!.At(15.0), 1e-6);
+        Assert.Equal(12.0, r.Trace("nc")!.At(25.0), 1e-2);
+    }
+
+    // A 12 V step closes the contacts within the class operate time of 10 ms (check-values §8, common practice):
+    // τ·ln(4) = 1.73 ms to reach 22.5 mA of 30 mA, plus 3 ms travel. Held at 1.3 V it holds; at 1.1 V it releases.
+    [Fact]
+    public void Step_Operates_Within_10ms_And_Holds_Until_Below_Drop_Out()
+    {
+        SimulationResult r = BlockBench.Run(
+        [
+            BlockBench.Pwl("VC", "c", (0, 0), (0.01, 0), (0.01 + 1e-6, 12), (0.1, 12), (0.1 + 1e-3, 1.3), (0.2, 1.3), (0.2 + 1e-3, 1.1)),
+            BlockBench.Dc("VS", "com", 12.0),
+            new Resistor("RNO", "RNO", "no", "0", 1e3),
+            Make(),
+        ], 0.3);
+        List<double> closed = BlockBench.Times(r, "K1", "contact no", "closed");
+        Assert.Single(closed);
+        Assert.InRange(closed[0] - 0.01, 0.0, 10e-3);
+        Assert.Equal(0.01 + 0.5 / 400.0 * Math.Log(4.0) + 3e-3, closed[0], 1e-5);
+        List<double> open = BlockBench.Times(r, "K1", "contact no", "open");
+        Assert.Single(open);
+        Assert.True(open[0] > 0.2, "1.3 V must hold the relay; 1.1 V releases it");
+    }
+
+    // Flyback diode (check-values §8, common practice): when the driver opens, the coil current freewheels through the
+    // diode, which clamps the coil's low side at V_CC + V_D instead of a kilovolt kick, and lengthens the release: with an
+    // ideal 0.6–0.7 V diode the current falls from 30 mA to the 3 mA drop-out current in
+    // τ·ln((I0 + V_D/R)/(I_do + V_D/R)) = 2.38–2.43 ms, τ = L/R = 1.25 ms (R-L freewheel, check-values §8 [CALC]).
+    [Fact]
+    public void Flyback_Diode_Clamps_The_Coil_And_Delays_Release()
+    {
+        SimulationResult r = BlockBench.Run(
+        [
+            BlockBench.Dc("VCC", "v", 12.0),
+            new Relay("K1", "K1", "v", "low", [], s_class),
+            new Switch("S1", "S1", "low", "0", 0.01, 1e8, initiallyClosed: true, [(0.1, 0.0)]),
+            new Capacitor("CS", "CS", "low", "0", 100e-12),
+            new Diode("D1", "D1", "low", "v", 7e-9, 1.8, seriesResistance: 0.035),
+        ], 0.2, TransientOptions.Default with { RecordNodes = ["low", "K1.i"] });
+        double pulled = Assert.Single(BlockBench.Times(r, "K1", "coil", "pulled in"));
+        Assert.True(pulled < 0.1);
+        double released = Assert.Single(BlockBench.Times(r, "K1", "coil", "released"));
+        Assert.InRange(released - 0.1, 2.2e-3, 2.6e-3);
+        Assert.InRange(r.Trace("low")!.Max, 12.3, 13.0);          // clamped one diode drop above the supply
+        Assert.Equal(0.03, r.Trace("K1.i")!.At(0.099), 1e-4);      // 12 V / 400 Ω before opening
+    }
+
+    [Fact]
+    public void Named_Load_Reports_Power_And_State()
+    {
+        Relay k = Make(load: "lamp");
+        Assert.Equal("lamp", k.LoadName);
+        Assert.Equal(60.0, k.LoadPower);
+        Assert.False(k.LoadOn);
+        ISwitchedLoad load = k;
+        Assert.Equal("lamp", load.LoadName);
+        Relay nc = new("K2", "K2", "c", "0", [], s_class with { LoadName = "lamp", LoadPower = 40, LoadNormallyClosed = true });
+        Assert.True(nc.LoadOn);
+    }
+}
