@@ -3,6 +3,8 @@ using System.Globalization;
 using System.Text.Json;
 using NightSim.Devices;
 using NightSim.Netlist;
+using NightSim.Runs;
+using NightSim.Sky;
 
 namespace NightSim.Cli.Commands;
 
@@ -68,7 +70,20 @@ internal static class CheckCommand
         NetlistLoadResult result = NetlistLoader.Read(netlistPath);
         var problems = new List<string>();
         problems.AddRange(result.Errors.Select(e => e.ToString()));
-        if (scenario is not null) problems.AddRange(CheckScenario(scenario.ToString()));
+        LightScenario? loadedScenario = null;
+        if (scenario is not null)
+        {
+            string scenarioPath = scenario.ToString();
+            List<string> syntax = CheckScenario(scenarioPath).ToList();
+            problems.AddRange(syntax);
+            if (syntax.Count == 0)
+            {
+                loadedScenario = ScenarioLoader.Load(scenarioPath, out IReadOnlyList<ScenarioError> scenarioErrors);
+                problems.AddRange(scenarioErrors.Select(e => e.ToString()));
+                if (loadedScenario is not null && result.Definition is not null)
+                    problems.AddRange(ScenarioFit.Problems(result.Definition, loadedScenario, netlistPath, scenarioPath));
+            }
+        }
 
         foreach (NetlistError w in result.Warnings) error.WriteLine(w.ToString());
         if (problems.Count > 0)
@@ -88,7 +103,12 @@ internal static class CheckCommand
         List<string> nodes = def.Parts.SelectMany(p => p.Pins.Values).Where(n => n != "0").Distinct().Order(StringComparer.Ordinal).ToList();
         output.WriteLine($"  nodes:    {nodes.Count} + ground ({string.Join(", ", nodes)})");
         output.WriteLine(result.Warnings.Count == 0 ? "  warnings: none" : $"  warnings: {result.Warnings.Count} (above)");
-        if (scenario is not null) output.WriteLine($"  scenario: {scenario} (valid JSON)");
+        if (loadedScenario is not null)
+        {
+            output.WriteLine($"  scenario: {loadedScenario.Name} ({scenario}): {loadedScenario.Site.Name}, {loadedScenario.Start:yyyy-MM-dd}, " +
+                $"{loadedScenario.Nights} night{(loadedScenario.Nights == 1 ? "" : "s")}, {loadedScenario.Events.Count} event definition{(loadedScenario.Events.Count == 1 ? "" : "s")}, seed {loadedScenario.Seed}");
+            foreach (ScenarioError w in loadedScenario.Warnings) error.WriteLine(w.ToString());
+        }
         return CliErrors.Success;
     }
 

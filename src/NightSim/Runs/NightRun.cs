@@ -23,6 +23,11 @@ public static class NightRun
     public static NightRunResult Run(NightRunRequest request, IProgress<double>? progress = null)
     {
         NetlistDefinition net = request.Netlist;
+        if (request.Scenario is not null)
+        {
+            IReadOnlyList<string> misfit = ScenarioFit.Problems(net, request.Scenario, request.NetlistPath, request.ScenarioPath ?? "scenario");
+            if (misfit.Count > 0) throw new RunInputException(misfit);
+        }
         LightProfile? profile = request.Scenario?.CreateProfile();
         double stop = profile?.Duration ?? request.Duration ?? DefaultDuration;
 

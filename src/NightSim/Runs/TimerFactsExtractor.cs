@@ -38,7 +38,7 @@ public static class TimerFactsExtractor
             }
             double? v = supplyVoltage(vcc);
             if (conductance <= 0 || capacitance <= 0 || v is null) continue;
-            double inputCurrent = timer.Parameters.Number("thresholdCurrent", 0);
+            double inputCurrent = Devices.Composite.Timer555.EffectiveNumber(timer, "thresholdCurrent");
             result.Add(new TimerFacts(timer.Id, 1.0 / conductance, capacitance, v.Value, leakCurrent + inputCurrent,
                 leakConductance > 0 ? 1.0 / leakConductance : double.PositiveInfinity));
         }

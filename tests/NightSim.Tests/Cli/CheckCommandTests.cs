@@ -65,6 +65,35 @@ public sealed class CheckCommandTests
     }
 
     [Fact]
+    public void Demo_With_Its_Scenario_Is_Valid_And_Summarised()
+    {
+        (int exit, string output, string error) = Run("check", Path.Combine(RepoPaths.Netlists, "garden-path-driveway.json"),
+            Path.Combine(RepoPaths.Netlists, "garden-path-driveway.scenario.json"));
+        Assert.True(exit == 0, error);
+        Assert.Contains("scenario: driveway-headlights", output, StringComparison.Ordinal);
+        Assert.Contains("seed 11", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Scenario_That_Does_Not_Fit_The_Netlist_Exits_2_Naming_Both()
+    {
+        string scenario = Path.Combine(Path.GetTempPath(), $"nightsim-misfit-{Environment.ProcessId}.scenario.json");
+        File.WriteAllText(scenario, File.ReadAllText(Path.Combine(RepoPaths.Netlists, "trigger-filter-absent.scenario.json"))
+            .Replace("\"node\": \"trig\"", "\"node\": \"trg\"", StringComparison.Ordinal));
+        try
+        {
+            (int exit, _, string error) = Run("check", Path.Combine(RepoPaths.Netlists, "trigger-filter-absent.json"), scenario);
+            Assert.Equal(2, exit);
+            Assert.Contains($"{scenario}: error at $.events[0].node: noise at node 'trg'", error, StringComparison.Ordinal);
+            Assert.Contains("trigger-filter-absent.json", error, StringComparison.Ordinal);
+        }
+        finally
+        {
+            File.Delete(scenario);
+        }
+    }
+
+    [Fact]
     public void Write_Schema_Writes_The_Generated_Schema()
     {
         string target = Path.Combine(Path.GetTempPath(), $"nightsim-schema-{Environment.ProcessId}.json");

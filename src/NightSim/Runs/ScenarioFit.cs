@@ -1,0 +1,46 @@
+using NightSim.Netlist;
+using NightSim.Sky;
+using NightSim.Sky.Events;
+
+namespace NightSim.Runs;
+
+/// <summary>
+/// Do a netlist and a scenario fit together? Noise must be injected at a node the netlist has; a lamp coupling must
+/// name a relay of the netlist and a light channel of the scenario; the netlist's light sensors must read channels
+/// the scenario defines. Each problem is one line naming the file, the part and a hint.
+/// </summary>
+public static class ScenarioFit
+{
+    private static readonly string[] s_sensorKinds = ["photoresistor", "phototransistor", "photodiode"];
+
+    public static IReadOnlyList<string> Problems(NetlistDefinition net, LightScenario scenario, string netlistPath, string scenarioPath)
+    {
+        var problems = new List<string>();
+        List<string> nodes = NightRun.NetlistNodes(net);
+        var channels = scenario.Channels.Select(c => c.Name).ToList();
+        var relays = net.Parts.Where(p => p.Kind == "relay").Select(p => p.Id).ToList();
+        for (int i = 0; i < scenario.Events.Count; i++)
+        {
+            string path = $"$.events[{i}]";
+            switch (scenario.Events[i])
+            {
+                case NoiseDefinition noise when !nodes.Contains(noise.Node):
+                    problems.Add($"{scenarioPath}: error at {path}.node: noise at node '{noise.Node}', which netlist {netlistPath} does not have. hint: nodes are {string.Join(", ", nodes.Take(16))}");
+                    break;
+                case LampCoupling c:
+                    if (!relays.Contains(c.Part))
+                        problems.Add($"{scenarioPath}: error at {path}.part: lamp-coupling names part '{c.Part}', which is not a relay in {netlistPath}. hint: relays: {(relays.Count > 0 ? string.Join(", ", relays) : "none")}");
+                    if (!channels.Contains(c.Channel))
+                        problems.Add($"{scenarioPath}: error at {path}.channel: light channel '{c.Channel}' is not defined. hint: channels: {string.Join(", ", channels)}");
+                    break;
+            }
+        }
+        foreach (PartDefinition sensor in net.Parts.Where(p => s_sensorKinds.Contains(p.Kind)))
+        {
+            string channel = sensor.Parameters.Text("channel", LightScenario.DefaultChannel);
+            if (!channels.Contains(channel))
+                problems.Add($"{netlistPath}: error at part {sensor.Id}: reads light channel '{channel}', which scenario {scenarioPath} does not define. hint: channels: {string.Join(", ", channels)}");
+        }
+        return problems;
+    }
+}
