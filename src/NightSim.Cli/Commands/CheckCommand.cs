@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Text.Json;
 using NightSim.Devices;
 using NightSim.Netlist;
+using NightSim.Reporting;
 using NightSim.Runs;
 using NightSim.Sky;
 
@@ -50,12 +51,12 @@ internal static class CheckCommand
         {
             if (writeSchema is not null)
             {
-                WriteAtomically(writeSchema.FullName, NetlistSchema.Generate());
+                AtomicFile.WriteText(writeSchema.FullName, NetlistSchema.Generate());
                 output.WriteLine($"wrote {writeSchema}");
             }
             if (writeKinds is not null)
             {
-                WriteAtomically(writeKinds.FullName, NetlistReference.Markdown());
+                AtomicFile.WriteText(writeKinds.FullName, NetlistReference.Markdown());
                 output.WriteLine($"wrote {writeKinds}");
             }
             if (netlist is null) return CliErrors.Success;
@@ -135,14 +136,5 @@ internal static class CheckCommand
             string where = string.Create(CultureInfo.InvariantCulture, $"{(ex.LineNumber ?? 0) + 1}:{(ex.BytePositionInLine ?? 0) + 1}");
             return [$"{path}:{where}: error at $: invalid JSON: {message.TrimEnd('.', ' ')}. hint: check brackets, quotes and commas near this position"];
         }
-    }
-
-    /// <summary>Writes the whole text to a temporary file beside <paramref name="path"/>, then moves it into place,
-    /// so a failure never leaves a half-written file.</summary>
-    private static void WriteAtomically(string path, string text)
-    {
-        string temp = path + ".tmp";
-        File.WriteAllText(temp, text);
-        File.Move(temp, path, overwrite: true);
     }
 }

@@ -1,6 +1,8 @@
 using System.CommandLine;
 using System.Globalization;
 using NightSim.Netlist;
+using NightSim.Reporting;
+using NightSim.Runs;
 using NightSim.Results;
 using NightSim.Transient;
 using NightSim.Units;
@@ -106,7 +108,10 @@ internal static class SimulateCommand
             return CliErrors.InvalidInput;
         }
         NetlistDefinition def = loaded.Definition!;
-        if (TouchesMains(def)) MainsCaution(output);
+        if (NightRun.TouchesMains(def))
+        {
+            foreach (string caution in ReportText.MainsCautions) output.WriteLine("CAUTION: " + caution);
+        }
 
         Circuit circuit = Circuit.Build(def);
         IReadOnlyList<string>? record = null;
@@ -134,12 +139,12 @@ internal static class SimulateCommand
         outDir.Create();
         string tracePath = Path.Combine(outDir.FullName, "trace.csv");
         string statsPath = Path.Combine(outDir.FullName, "statistics.json");
-        WriteAtomically(tracePath, stream =>
+        AtomicFile.Write(tracePath, stream =>
         {
             using var writer = new StreamWriter(stream, leaveOpen: true);
             TraceCsv.Write(result.Traces, writer);
         });
-        WriteAtomically(statsPath, stream => StatisticsJson.Write(result, stream));
+        AtomicFile.Write(statsPath, stream => StatisticsJson.Write(result, stream));
 
         var inv = CultureInfo.InvariantCulture;
         output.WriteLine($"{def.Name}: simulated {EngineeringValue.Format(stop, "s")} from power-up");
@@ -149,33 +154,5 @@ internal static class SimulateCommand
             output.WriteLine($"  {t.Name}: final {EngineeringValue.Format(t.Values.Count > 0 ? t.Values[^1] : double.NaN, t.Unit)}, min {EngineeringValue.Format(t.Min, t.Unit)}, max {EngineeringValue.Format(t.Max, t.Unit)}");
         output.WriteLine($"  wrote {tracePath} and {statsPath}");
         return CliErrors.Success;
-    }
-
-    private static bool TouchesMains(NetlistDefinition def) =>
-        def.Parts.Any(p => p.Kind == "voltage-source" &&
-            (Math.Abs(p.Parameters.Number("dc", 0)) >= 50 || Math.Abs(p.Parameters.Object("sine")?.Number("amplitude", 0) ?? 0) >= 50));
-
-    private static void MainsCaution(TextWriter output)
-    {
-        output.WriteLine("CAUTION: this circuit carries mains-level voltage. A capacitive-dropper supply is NOT isolated from mains: every node");
-        output.WriteLine("  is at a lethal voltage. Use a fuse, an X2-class series capacitor with a bleeder resistor, and a closed insulating");
-        output.WriteLine("  enclosure. A simulation is not a safety assessment; follow local electrical codes and have a licensed electrician");
-        output.WriteLine("  do the mains wiring.");
-    }
-
-    /// <summary>Write to a temporary file beside <paramref name="path"/>, then rename over it (no half-written file).</summary>
-    private static void WriteAtomically(string path, Action<Stream> write)
-    {
-        string temp = path + ".tmp";
-        try
-        {
-            using (var stream = new FileStream(temp, FileMode.Create, FileAccess.Write))
-                write(stream);
-            File.Move(temp, path, overwrite: true);
-        }
-        finally
-        {
-            if (File.Exists(temp)) File.Delete(temp);
-        }
     }
 }

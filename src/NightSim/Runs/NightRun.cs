@@ -103,10 +103,12 @@ public static class NightRun
         return list;
     }
 
-    /// <summary>True when the design touches mains: a relay switching a named load, or a source of mains amplitude.</summary>
+    /// <summary>True when the design touches mains: a relay switching a named load (the lamp), or a source of 50 V or
+    /// more (a dropper supply's mains feed).</summary>
     public static bool TouchesMains(NetlistDefinition net) =>
         net.Parts.Any(p => p.Kind == "relay" && p.Parameters.Has("load"))
-        || net.Parts.Any(p => p.Kind == "voltage-source" && p.Parameters.Object("sine") is { } s && Math.Abs(s.Number("amplitude", 0)) >= 50);
+        || net.Parts.Any(p => p.Kind == "voltage-source" &&
+            (Math.Abs(p.Parameters.Number("dc", 0)) >= 50 || Math.Abs(p.Parameters.Object("sine")?.Number("amplitude", 0) ?? 0) >= 50));
 
     private static void AddNoise(NightRunRequest request, LightProfile profile, List<string> nodes, List<Device> devices, List<string> problems)
     {
