@@ -93,8 +93,10 @@ public static class TerminalReport
                 string sunset = first ? ReportText.Clock(n.Sunset) : "";
                 string onAt = on is null ? (n.Missed ? "[red]missed[/]" : "—") : ReportText.Clock(on.Start);
                 string offAt = on is null ? "—" : on.End is null ? "[yellow]still on[/]" : ReportText.Clock(on.End);
-                string duration = on is null ? "—" : ReportText.Duration(on.DurationSeconds);
-                string cause = on is null ? "" : on.Expected
+                string duration = on is null ? "—" : (on.Folded > 0 ? "total " : "") + ReportText.Duration(on.DurationSeconds);
+                string cause = on is null ? "" : on.Folded > 0
+                    ? $"[grey]… {on.Folded} more, mostly {Markup.Escape(ReportText.Cause(on.Cause))}[/]"
+                    : on.Expected
                     ? Markup.Escape(ReportText.Cause(on.Cause))
                     : "[red]" + Markup.Escape(ReportText.Cause(on.Cause)) + "[/]";
                 table.AddRow(

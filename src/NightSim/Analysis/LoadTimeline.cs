@@ -51,6 +51,7 @@ public static class LoadTimeline
         if (onSince is not null) raw.Add((onSince.Value, null, power));
 
         var result = new List<AttributedInterval>(raw.Count);
+        var loadParts = new HashSet<string>(facts.LoadTransitions.Select(l => l.PartId), StringComparer.Ordinal);
         var nightsWithDusk = new HashSet<DateOnly>();
         double? previousEnd = null;
         foreach ((double start, double? end, double p) in raw)
@@ -60,7 +61,7 @@ public static class LoadTimeline
             bool expected = false;
             if (cause == LoadCause.Dusk && night is not null && nightsWithDusk.Add(night.Date)) expected = true;
             else if (cause == LoadCause.Dusk && night is null) expected = result.Count == 0;
-            (string endedBy, bool byTimer) = EndedBy(facts, end);
+            (string endedBy, bool byTimer) = EndedBy(facts, end, loadParts);
             result.Add(new AttributedInterval(start, end, p, cause, expected, explanation, endedBy, byTimer, ev));
             previousEnd = end;
         }
@@ -116,17 +117,22 @@ public static class LoadTimeline
         return (LoadCause.Unexplained, "no light or noise event and no dusk edge explains this switch-on", null);
     }
 
-    private static (string, bool) EndedBy(RunFacts facts, double? end)
+    private static (string, bool) EndedBy(RunFacts facts, double? end, HashSet<string> loadParts)
     {
         if (end is null) return ("still on at the end of the run", false);
-        // The latest timer-side discrete change just before the load went off tells why.
-        DiscreteEvent? last = null;
-        foreach (DiscreteEvent e in facts.DeviceEvents)
+        // The latest timer-side discrete change just before the load went off tells why. Device events are in time
+        // order: start at the first one inside the last second (binary search; a chattering night has thousands).
+        IReadOnlyList<DiscreteEvent> events = facts.DeviceEvents;
+        int lo = 0, hi = events.Count;
+        while (lo < hi)
         {
-            if (e.Time > end.Value + 1e-6) break;
-            if (e.Time < end.Value - 1.0) continue;
-            bool isLoad = facts.LoadTransitions.Any(l => l.PartId == e.PartId);
-            if (!isLoad) last = e;
+            int mid = (lo + hi) >>> 1;
+            if (events[mid].Time < end.Value - 1.0) lo = mid + 1; else hi = mid;
+        }
+        DiscreteEvent? last = null;
+        for (int i = lo; i < events.Count && events[i].Time <= end.Value + 1e-6; i++)
+        {
+            if (!loadParts.Contains(events[i].PartId)) last = events[i];
         }
         if (last is null) return ("switched off (relay dropped out without a timer change: supply sag?)", false);
         string d = last.Device.ToLowerInvariant();

@@ -127,7 +127,7 @@ public static class HtmlReportWriter
                     h.Append("<td class=\"off\">").Append(Esc(on.End is null ? "still on" : ReportText.Clock(on.End)))
                      .Append("<div class=\"note\">").Append(Esc(on.EndedBy)).Append("</div></td>");
                     Cell(h, "", ReportText.Duration(on.DurationSeconds), "num");
-                    h.Append("<td class=\"cause\">").Append(Esc(ReportText.Cause(on.Cause)));
+                    h.Append("<td class=\"cause\">").Append(Esc(on.Folded > 0 ? $"… {on.Folded} more" : ReportText.Cause(on.Cause)));
                     if (on.Explanation.Length > 0) h.Append("<div class=\"note\">").Append(Esc(on.Explanation)).Append("</div>");
                     h.Append("</td>");
                     h.Append(on.Expected ? "<td class=\"yes\">yes</td>" : "<td class=\"no\">no</td>");

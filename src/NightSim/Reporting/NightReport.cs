@@ -17,7 +17,12 @@ public sealed record LoadInterval(
     LoadCause Cause,
     bool Expected,
     string Explanation,
-    string EndedBy);
+    string EndedBy)
+{
+    /// <summary>0 for a real interval; for a table row that stands for several folded intervals, how many (its
+    /// start is the first one's, its end the last one's, its duration their total on-time).</summary>
+    public int Folded { get; init; }
+}
 
 /// <summary>What happened in one night (local noon to local noon).</summary>
 public sealed record NightSummary

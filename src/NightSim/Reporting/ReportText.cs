@@ -66,8 +66,8 @@ public static class ReportText
         LoadCause common = rest.GroupBy(i => i.Cause).OrderByDescending(g => g.Count()).First().Key;
         LoadInterval last = rest[^1];
         shown.Add(new LoadInterval(rest[0].Start, last.End, rest.Sum(i => i.DurationSeconds), common, rest.Any(i => i.Expected),
-            $"… and {rest.Count} more switch-ons until {Clock(last.Start)}, mostly {Cause(common)} (every one is in report.json)",
-            last.EndedBy));
+            $"{rest.Count} more switch-ons from {Clock(rest[0].Start)} to {Clock(last.Start)}, mostly {Cause(common)}, on for {Duration(rest.Sum(i => i.DurationSeconds))} in all (every one is in report.json)",
+            last.EndedBy) { Folded = rest.Count });
         return night with { LoadOn = shown };
     }
 

@@ -17,16 +17,18 @@ public static class NightTraces
         return lux;
     }
 
-    /// <summary>True when the load was on at run time t.</summary>
+    /// <summary>True when the load was on at run time t (binary search: a chattering relay has thousands of transitions
+    /// and the trace table asks at every sample).</summary>
     public static bool LoadOn(RunFacts facts, double t)
     {
-        bool on = false;
-        foreach (LoadTransition x in facts.LoadTransitions)
+        IReadOnlyList<LoadTransition> x = facts.LoadTransitions;
+        int lo = 0, hi = x.Count;
+        while (lo < hi)
         {
-            if (x.Time > t) break;
-            on = x.On;
+            int mid = (lo + hi) >>> 1;
+            if (x[mid].Time <= t) lo = mid + 1; else hi = mid;
         }
-        return on;
+        return lo > 0 && x[lo - 1].On;
     }
 
     public static TraceTable Table(RunFacts facts, LightProfile? profile, SimulationResult sim, IReadOnlyList<string> nodes)
@@ -79,9 +81,20 @@ public static class NightTraces
             if (facts.LoadTransitions.Count > 0) series.Add(LoadSeries(facts, from, to));
             var markers = new List<PlotMarker>();
             AddSun(markers, facts, n);
-            foreach (AttributedInterval iv in analysis.Intervals.Where(i => i.Start >= from && i.Start < to && !i.Expected))
+            // One marker per false trigger, the first few of each cause only: a chattering night would bury the plot.
+            foreach (IGrouping<LoadCause, AttributedInterval> g in analysis.Intervals
+                         .Where(i => i.Start >= from && i.Start < to && !i.Expected).GroupBy(i => i.Cause))
             {
-                markers.Add(new PlotMarker(iv.Start, $"{ReportText.Cause(iv.Cause)} {ReportText.Clock(facts.Clock(iv.Start))}", Emphasis: true));
+                double last = double.NegativeInfinity;
+                int count = 0;
+                foreach (AttributedInterval iv in g)
+                {
+                    // Markers closer than 1 % of the window would print over each other.
+                    if (iv.Start - last < (to - from) / 100) continue;
+                    markers.Add(new PlotMarker(iv.Start, $"{ReportText.Cause(iv.Cause)} {ReportText.Clock(facts.Clock(iv.Start))}", Emphasis: true));
+                    last = iv.Start;
+                    if (++count == MaxMarkersPerCause) break;
+                }
             }
             plots.Add(new PlotData
             {
@@ -166,7 +179,8 @@ public static class NightTraces
             }
         }
         double[] ts = [.. t];
-        return new PlotSeries("illuminance at sensor", "lx", PlotPanel.Light, ts, [.. ts.Select(x => SensorLux(facts, x))]);
+        (double[] tt, double[] vv) = Thin(ts, [.. ts.Select(x => SensorLux(facts, x))], from, to);
+        return new PlotSeries("illuminance at sensor", "lx", PlotPanel.Light, tt, vv);
     }
 
     private static PlotSeries LoadSeries(RunFacts facts, double from, double to)
@@ -181,7 +195,50 @@ public static class NightTraces
         }
         ts.Add(to);
         vs.Add(vs[^1]);
-        return new PlotSeries("lamp on", "", PlotPanel.States, [.. ts], [.. vs]);
+        (double[] t, double[] v) = Thin(ts, vs, from, to);
+        return new PlotSeries("lamp on", "", PlotPanel.States, t, v);
+    }
+
+    /// <summary>False-trigger markers per cause and night plot.</summary>
+    public const int MaxMarkersPerCause = 4;
+
+    /// <summary>Points a plotted series keeps at most before it is thinned to a min/max envelope per bucket (a chattering
+    /// relay gives tens of thousands of steps; a plot shows about a thousand pixels).</summary>
+    public const int MaxPlotPoints = 4000;
+
+    /// <summary>Thins a series to the first, the opposite extreme and the last point of each of
+    /// <see cref="MaxPlotPoints"/>/4 buckets, so no spike and no on/off burst disappears.</summary>
+    public static (double[] Times, double[] Values) Thin(IReadOnlyList<double> ts, IReadOnlyList<double> vs, double from, double to)
+    {
+        if (ts.Count <= MaxPlotPoints || to <= from) return ([.. ts], [.. vs]);
+        int buckets = MaxPlotPoints / 4;
+        double width = (to - from) / buckets;
+        var t = new List<double>(MaxPlotPoints);
+        var v = new List<double>(MaxPlotPoints);
+        int i = 0;
+        for (int b = 0; b < buckets && i < ts.Count; b++)
+        {
+            double end = b == buckets - 1 ? double.PositiveInfinity : from + (b + 1) * width;
+            int start = i;
+            double min = double.PositiveInfinity, max = double.NegativeInfinity;
+            while (i < ts.Count && ts[i] < end)
+            {
+                min = Math.Min(min, vs[i]);
+                max = Math.Max(max, vs[i]);
+                i++;
+            }
+            if (i == start) continue;
+            t.Add(ts[start]);
+            v.Add(vs[start]);
+            if (max > min)
+            {
+                t.Add(ts[start]);
+                v.Add(vs[start] == max ? min : max);
+            }
+            t.Add(ts[i - 1]);
+            v.Add(vs[i - 1]);
+        }
+        return ([.. t], [.. v]);
     }
 
     private static PlotSeries Slice(Trace tr, double from, double to, string title)
@@ -194,7 +251,8 @@ public static class NightTraces
             ts.Add(tr.Times[i]);
             vs.Add(tr.Values[i]);
         }
-        return new PlotSeries(title, tr.Unit, PlotPanel.Voltages, [.. ts], [.. vs]);
+        (double[] t, double[] v) = Thin(ts, vs, from, to);
+        return new PlotSeries(title, tr.Unit, PlotPanel.Voltages, t, v);
     }
 
     private static void AddSun(List<PlotMarker> markers, RunFacts facts, NightWindow n)
