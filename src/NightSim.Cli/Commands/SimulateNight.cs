@@ -55,7 +55,8 @@ internal static class SimulateNight
             ScenarioPath = s.ScenarioPath,
             Tool = "nightsim " + typeof(SimulateNight).Assembly.GetName().Version?.ToString(3),
         };
-        var progress = new ProgressReporter(console, enabled: !s.NoProgress && s.Format == "text");
+        // Progress goes to standard error, so standard output carries only the report (redirect it to a file freely).
+        var progress = new ProgressReporter(Terminal.For(error), enabled: !s.NoProgress && s.Format == "text");
         int nights = scenario.Nights;
         NightRunResult result = progress.Run(p => NightRun.Run(request, new Progress(p, nights)));
 
