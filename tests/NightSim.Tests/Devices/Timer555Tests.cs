@@ -205,11 +205,10 @@ public sealed class Timer555Tests
         Assert.Equal(Math.Log(2.0) * 10e3 * 100e-9, period - high, Math.Log(2.0) * 10e3 * 100e-9 * 1e-3);
     }
 
-    // Engine check (kept failing on purpose until the engine's re-take reaches the true crossing): the one-shot of
-    // ln 3 · 1 MΩ · 100 µF = 109.861 s (check-values Q7) with default step control. Observed: the crossing is fired at
-    // the end of an 8 s step (width 110.91 s, +1 %) because the dense-output root was early by more than the re-take's
-    // growth sequence (1 ns·4^k, 8 tries) covers, and the fallback takes the whole step.
-    [Fact(Skip = "engine: event re-take falls back to the full step when the dense-output root is early (reported to the lead)")]
+    // Engine check: the one-shot of ln 3 · 1 MΩ · 100 µF = 109.861 s (check-values Q7) with default step control. The
+    // threshold crossing lies inside a step of several seconds; the engine must locate it on re-taken steps rather than
+    // fire at the end of the step (that gave 110.91 s, +1 %).
+    [Fact]
     public void Engine_Locates_Threshold_Crossing_With_Default_Steps()
     {
         double tw = Math.Log(3.0) * 100.0;
