@@ -50,9 +50,10 @@ public sealed partial class TransientSolver
     {
         EnsureLocateBuffers();
         int m = _eventSource.Length;
-        // Tolerance: ε_t (1e-9 s absolute by default), never below a few ulps of the absolute time, never above 1 µs.
-        double ulp = Math.BitIncrement(Math.Abs(t) + h) - (Math.Abs(t) + h);
-        double ttol = Math.Min(Math.Max(_options.EventTimeTolerance, 8.0 * ulp), Math.Max(1e-6, 8.0 * ulp));
+        // Tolerance: ε_t (1e-9 s absolute by default), never below 100ε·(|t| + h) (a few tens of ulps of the absolute
+        // time, numerics.md §3), never above 1 µs unless the time resolution itself is coarser.
+        double floor = 100.0 * MachineEpsilon * (Math.Abs(t) + h);
+        double ttol = Math.Min(Math.Max(_options.EventTimeTolerance, floor), Math.Max(1e-6, floor));
         double thetaTol = ttol / h;
 
         // Dense-output guess (earliest over the functions that changed sign).
