@@ -56,19 +56,11 @@ public sealed class LoadContext
     /// <summary>Light on the sensor channels; null when the run has no light (sensors then see <see cref="ConstantLux"/>).</summary>
     public ILightSignal? Light { get; set; }
 
-    /// <summary>Extra illuminance per channel added by the circuit itself (lamp self-illumination), lux; may be null.</summary>
-    public double[]? ExtraLux { get; set; }
-
     /// <summary>Illuminance when no light signal is attached, lux.</summary>
     public double ConstantLux { get; set; }
 
     /// <summary>Illuminance on <paramref name="channel"/> at <see cref="Time"/>, lux.</summary>
-    public double Lux(int channel)
-    {
-        double lux = channel < 0 ? ConstantLux : (Light?.Lux(channel, Time) ?? ConstantLux);
-        if (ExtraLux is not null && channel >= 0 && channel < ExtraLux.Length) lux += ExtraLux[channel];
-        return lux;
-    }
+    public double Lux(int channel) => channel < 0 ? ConstantLux : (Light?.Lux(channel, Time) ?? ConstantLux);
 
     /// <summary>Voltage of unknown <paramref name="index"/>, 0 for ground (-1).</summary>
     public double V(int index) => index < 0 ? 0.0 : X[index];

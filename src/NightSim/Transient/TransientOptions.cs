@@ -59,7 +59,8 @@ public sealed record TransientOptions
     /// <summary>Initial voltages of named nodes at power-up, volts (others start at 0 V).</summary>
     public IReadOnlyDictionary<string, double>? InitialVoltages { get; init; }
 
-    /// <summary>Event time tolerance, seconds (the solver uses at least 100 ulp of the current time).</summary>
+    /// <summary>Event time tolerance, seconds: the crossing is bracketed on real steps to this width (the solver uses at
+    /// least 100ε·t, a few tens of ulps of the current time, and at most 1 µs unless that floor is coarser).</summary>
     public double EventTimeTolerance { get; init; } = 1e-9;
 
     /// <summary>Logic passes allowed at one event time before the run fails as an endless switching loop.</summary>

@@ -49,11 +49,6 @@ public sealed class Timer555Tests
         return devices;
     }
 
-    /// <summary>Step limit of tw/100. With the default 60 s limit the engine's event re-take can miss a crossing that
-    /// its dense output placed early and fire at the end of the step (see <see cref="Engine_Locates_Threshold_Crossing_With_Default_Steps"/>);
-    /// a finer step keeps the dense-output root within the re-take's reach.</summary>
-    private static TransientOptions Steps(double tw) => TransientOptions.Default with { MaxStep = Math.Min(60.0, tw / 100.0) };
-
     private static (double Set, double Reset) Pulse(SimulationResult r)
     {
         List<double> up = BlockBench.Times(r, "U1.latch", "q", "high");
@@ -96,7 +91,7 @@ public sealed class Timer555Tests
     }
 
     // One-shot width t_w = ln 3 · R · C (check-values §6, textbook 555 formula; Q7), within 0.2 % for an ideal-parameter
-    // timer, R from 10 kΩ to 10 MΩ and C from 1 nF to 3300 µF. Width = latch set → latch reset.
+    // timer, R from 10 kΩ to 10 MΩ and C from 1 nF to 3300 µF, at default options. Width = latch set → latch reset.
     [Theory]
     [InlineData(10e3, 1e-9)]
     [InlineData(10e3, 3300e-6)]
@@ -108,7 +103,7 @@ public sealed class Timer555Tests
     {
         double tw = Math.Log(3.0) * r * c;
         double t0 = 2e-3;
-        SimulationResult result = BlockBench.Run(OneShot(r, c, 12.0, Ideal(), t0, Math.Min(1e-6, 0.05 * tw)), t0 + 1.5 * tw + 1e-3, Steps(tw));
+        SimulationResult result = BlockBench.Run(OneShot(r, c, 12.0, Ideal(), t0, Math.Min(1e-6, 0.05 * tw)), t0 + 1.5 * tw + 1e-3);
         var (set, reset) = Pulse(result);
         Assert.Equal(t0, set, 1e-6 + 1e-9 * t0);
         Assert.True(Math.Abs((reset - set) / tw - 1.0) < 0.002, $"width {reset - set} s, expected {tw} s");
@@ -121,7 +116,7 @@ public sealed class Timer555Tests
     {
         List<Device> devices = OneShot(1e6, 100e-6, 12.0, Ideal(), 1.0, 1e-3);
         devices.Add(new CurrentSource("IL", "IL", "tc", "0", Waveform.Dc(1e-6)));
-        SimulationResult r = BlockBench.Run(devices, 200.0, Steps(129.93));
+        SimulationResult r = BlockBench.Run(devices, 200.0);
         var (set, reset) = Pulse(r);
         Assert.Equal(129.93, reset - set, 129.93 * 1e-3);
     }
@@ -147,7 +142,7 @@ public sealed class Timer555Tests
     [Fact]
     public void Threshold_Current_Of_0_25uA_At_15V_With_10MOhm_Gives_1_6094_RC()
     {
-        SimulationResult r = BlockBench.Run(OneShot(10e6, 1e-6, 15.0, Ideal(new() { ["thresholdCurrent"] = 0.25e-6 }), 2e-3, 1e-6), 30.0, Steps(16.0));
+        SimulationResult r = BlockBench.Run(OneShot(10e6, 1e-6, 15.0, Ideal(new() { ["thresholdCurrent"] = 0.25e-6 }), 2e-3, 1e-6), 30.0);
         var (set, reset) = Pulse(r);
         Assert.Equal(Math.Log(5.0) * 10.0, reset - set, 10.0 * Math.Log(5.0) * 2e-3);
     }
@@ -169,7 +164,7 @@ public sealed class Timer555Tests
             new Resistor("RL", "RL", "out", "0", 10e3),
         };
         devices.AddRange(Timer(new() { ["dischargeResistance"] = 0.01 }, "bipolar"));
-        SimulationResult r = BlockBench.Run(devices, 200.0, Steps(110.0));
+        SimulationResult r = BlockBench.Run(devices, 200.0);
         var (set, reset) = Pulse(r);
         double g = 1.0 / 1e6 + 1.0 / 500e6;
         double vInf = (12.0 / 1e6 - 30e-9) / g;
@@ -205,11 +200,10 @@ public sealed class Timer555Tests
         Assert.Equal(Math.Log(2.0) * 10e3 * 100e-9, period - high, Math.Log(2.0) * 10e3 * 100e-9 * 1e-3);
     }
 
-    // Engine check (kept failing on purpose until the engine's re-take reaches the true crossing): the one-shot of
-    // ln 3 · 1 MΩ · 100 µF = 109.861 s (check-values Q7) with default step control. Observed: the crossing is fired at
-    // the end of an 8 s step (width 110.91 s, +1 %) because the dense-output root was early by more than the re-take's
-    // growth sequence (1 ns·4^k, 8 tries) covers, and the fallback takes the whole step.
-    [Fact(Skip = "engine: event re-take falls back to the full step when the dense-output root is early (reported to the lead)")]
+    // Engine check: the one-shot of ln 3 · 1 MΩ · 100 µF = 109.861 s (check-values Q7) with default step control. The
+    // threshold crossing lies inside a step of several seconds; the engine must locate it on re-taken steps rather than
+    // fire at the end of the step (that gave 110.91 s, +1 %).
+    [Fact]
     public void Engine_Locates_Threshold_Crossing_With_Default_Steps()
     {
         double tw = Math.Log(3.0) * 100.0;
@@ -223,7 +217,7 @@ public sealed class Timer555Tests
     [Fact]
     public void Trigger_Held_Low_Keeps_The_Output_High_Until_Released()
     {
-        SimulationResult r = BlockBench.Run(OneShot(1e6, 100e-6, 12.0, Ideal(), 1.0, 300.0), 400.0, Steps(109.86));
+        SimulationResult r = BlockBench.Run(OneShot(1e6, 100e-6, 12.0, Ideal(), 1.0, 300.0), 400.0);
         var (set, reset) = Pulse(r);
         Assert.Equal(1.0, set, 1e-6);
         Assert.Equal(301.0, reset, 1e-6);
@@ -248,7 +242,7 @@ public sealed class Timer555Tests
             new Resistor("RL", "RL", "out", "0", 10e3),
         };
         devices.AddRange(Timer(Ideal()));
-        SimulationResult r = BlockBench.Run(devices, 60.0, Steps(109.86));
+        SimulationResult r = BlockBench.Run(devices, 60.0);
         var (set, reset) = Pulse(r);
         Assert.Equal(1.0, set, 1e-6);
         // RESET falls 12 → 0 V in 1 µs and crosses the 0.7 V reset threshold 0.9417 µs after 20 s.

@@ -50,16 +50,9 @@ public sealed class LightInput
     /// <summary>Illuminance on the sensor at ctx.Time, lux (never negative).</summary>
     public double Lux(LoadContext ctx)
     {
-        double lux;
-        if (ctx.Light is not null && _channel >= 0)
-        {
-            lux = ctx.Lux(_channel);
-        }
-        else
-        {
-            lux = _times.Length > 0 ? Pwl(ctx.Time) : _constant ?? ctx.ConstantLux;
-            if (ctx.ExtraLux is not null && _channel >= 0 && _channel < ctx.ExtraLux.Length) lux += ctx.ExtraLux[_channel];
-        }
+        double lux = ctx.Light is not null && _channel >= 0
+            ? ctx.Lux(_channel)
+            : _times.Length > 0 ? Pwl(ctx.Time) : _constant ?? ctx.ConstantLux;
         return Math.Max(0.0, lux * Gain);
     }
 
