@@ -54,11 +54,14 @@ public static class NightRun
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
         var zoomIndices = nodes.Select(circuit.IndexOf).ToList();
         var zoom = new ZoomCapture(zoomIndices);
+        // A narrow window around each switch-on: the trigger dip and the relay's pull-in take milliseconds.
+        var detail = new ZoomCapture(zoomIndices, maxWindows: 6) { Before = 0.02, After = 0.06 };
         bool[] lastOn = new bool[loads.Count];
         double nextReport = 0;
         solver.Accepted = s =>
         {
             zoom.Add(s.Time, s.Solution);
+            detail.Add(s.Time, s.Solution);
             for (int i = 0; i < lastOn.Length; i++)
             {
                 bool on = loads[i].LoadOn;
@@ -66,6 +69,7 @@ public static class NightRun
                 {
                     lastOn[i] = on;
                     zoom.Mark(s.Time, on ? "load on" : "load off");
+                    if (on) detail.Mark(s.Time, "load on");
                 }
             }
             if (progress is not null && s.Time >= nextReport)
@@ -81,7 +85,7 @@ public static class NightRun
         AnalysisResult analysis = NightAnalysis.Analyze(facts);
         NightReport report = BuildReport(request, profile, facts, analysis, sim);
         TraceTable table = NightTraces.Table(facts, profile, sim, nodes);
-        IReadOnlyList<PlotData> plots = NightTraces.Plots(request, facts, analysis, profile, sim, zoom, nodes);
+        IReadOnlyList<PlotData> plots = NightTraces.Plots(request, facts, analysis, profile, sim, [(zoom, "zoom"), (detail, "detail")], nodes);
         return new NightRunResult(sim, profile, facts, analysis, report, table, plots);
     }
 

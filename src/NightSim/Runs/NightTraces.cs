@@ -58,7 +58,7 @@ public static class NightTraces
     }
 
     public static IReadOnlyList<PlotData> Plots(NightRunRequest request, RunFacts facts, AnalysisResult analysis, LightProfile? profile,
-        SimulationResult sim, ZoomCapture zoom, IReadOnlyList<string> nodes)
+        SimulationResult sim, IReadOnlyList<(ZoomCapture Capture, string Prefix)> zooms, IReadOnlyList<string> nodes)
     {
         NodeRoles roles = NodeRoles.Of(request.Netlist);
         var plots = new List<PlotData>();
@@ -109,6 +109,16 @@ public static class NightTraces
             });
         }
 
+        foreach ((ZoomCapture zoom, string prefix) in zooms)
+        {
+            AddZooms(plots, request, facts, analysis, profile, roles, zoom, prefix, nodes);
+        }
+        return plots;
+    }
+
+    private static void AddZooms(List<PlotData> plots, NightRunRequest request, RunFacts facts, AnalysisResult analysis,
+        LightProfile? profile, NodeRoles roles, ZoomCapture zoom, string prefix, IReadOnlyList<string> nodes)
+    {
         int k = 0;
         foreach (ZoomCapture.Window w in zoom.Windows)
         {
@@ -135,17 +145,16 @@ public static class NightTraces
                 : Math.Abs(iv.Start - w.EventTime) < 1e-6 ? $"lamp on ({ReportText.Cause(iv.Cause)})" : $"lamp off ({iv.EndedBy})";
             plots.Add(new PlotData
             {
-                Title = $"{request.Netlist.Name}: {what} at {ReportText.Clock(facts.Clock(w.EventTime))}",
+                Title = $"{request.Netlist.Name}: {what} at {ReportText.Clock(facts.Clock(w.EventTime))}" + (prefix == "detail" ? " (detail)" : ""),
                 Origin = facts.Origin,
                 TimeZone = facts.TimeZone,
                 From = from,
                 To = to,
                 Series = series,
                 Markers = [.. w.Labels.Select(l => new PlotMarker(l.Time, l.Label, Emphasis: iv is { Expected: false } && iv.Cause != Reporting.LoadCause.PowerUp))],
-                FileStem = $"zoom-{k:00}-{Slug(what)}",
+                FileStem = $"{prefix}-{k:00}-{Slug(what)}",
             });
         }
-        return plots;
     }
 
     private static IEnumerable<(string Node, string Title)> Voltages(NodeRoles roles)
