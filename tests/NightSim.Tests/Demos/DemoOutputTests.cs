@@ -39,6 +39,10 @@ public class DemoOutputTests
             string[] svgs = Directory.GetFiles(dir, "*.svg");
             Assert.Contains(svgs, f => Path.GetFileName(f).StartsWith("night-", StringComparison.Ordinal));
             Assert.Contains(svgs, f => Path.GetFileName(f).StartsWith("zoom-", StringComparison.Ordinal));
+            // One millisecond-scale detail per switch-on (dusk and the headlight): the trigger dip is drawn.
+            string[] details = svgs.Where(f => Path.GetFileName(f).StartsWith("detail-", StringComparison.Ordinal)).ToArray();
+            Assert.Equal(2, details.Length);
+            Assert.Contains("V(trig) trigger pin", File.ReadAllText(details[0]), StringComparison.Ordinal);
             string nightSvg = File.ReadAllText(svgs.First(f => Path.GetFileName(f).StartsWith("night-", StringComparison.Ordinal)));
             foreach (string series in (string[])["illuminance at sensor", "V(sense) sensor", "V(trig) trigger pin", "V(tc) timing capacitor", "lamp on"])
                 Assert.Contains(series, nightSvg, StringComparison.Ordinal);
