@@ -17,6 +17,7 @@ public static class NightAnalysis
 
     public static AnalysisResult Analyze(RunFacts facts)
     {
+        using InvariantCultureScope invariant = InvariantCultureScope.Enter();
         IReadOnlyList<AttributedInterval> intervals = LoadTimeline.Build(facts);
         var nights = new List<NightSummary>();
         IEnumerable<NightWindow> windows = facts.Nights.Count > 0

@@ -81,6 +81,8 @@ public static class NightRun
         SimulationResult sim = solver.Run(stop);
         progress?.Report(1.0);
 
+        // Findings and report text are interpolated by many analysers: build them under the invariant culture.
+        using InvariantCultureScope invariant = InvariantCultureScope.Enter();
         RunFacts facts = RunFactsBuilder.Build(request, profile, devices, sim, stop);
         AnalysisResult analysis = NightAnalysis.Analyze(facts);
         NightReport report = BuildReport(request, profile, facts, analysis, sim);

@@ -169,3 +169,34 @@ public class NightDemoTests
         return data;
     }
 }
+
+/// <summary>Reports read the same on every machine: a decimal-comma culture changes nothing.</summary>
+public class NightReportCultureTests
+{
+    [Fact]
+    public void DecimalCommaCultureGivesTheSameReport()
+    {
+        static string Json(NightSim.Reporting.NightReport report)
+        {
+            using var s = new MemoryStream();
+            NightSim.Reporting.JsonReportWriter.Write(report with { Statistics = report.Statistics with { CpuSeconds = 0 } }, s);
+            return System.Text.Encoding.UTF8.GetString(s.ToArray());
+        }
+        var saved = System.Globalization.CultureInfo.CurrentCulture;
+        string invariant, german;
+        try
+        {
+            System.Globalization.CultureInfo.CurrentCulture = System.Globalization.CultureInfo.InvariantCulture;
+            invariant = Json(DemoRuns.Fresh("garden-path").Report);
+            System.Globalization.CultureInfo.CurrentCulture = new System.Globalization.CultureInfo("de-DE");
+            german = Json(DemoRuns.Fresh("garden-path").Report);
+            Assert.Equal("de-DE", System.Globalization.CultureInfo.CurrentCulture.Name); // the run restored the caller's culture
+        }
+        finally
+        {
+            System.Globalization.CultureInfo.CurrentCulture = saved;
+        }
+        Assert.Equal(invariant, german);
+        Assert.Contains("1.4 lx", invariant, StringComparison.Ordinal);
+    }
+}
