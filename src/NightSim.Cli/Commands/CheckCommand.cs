@@ -106,7 +106,7 @@ internal static class CheckCommand
         output.WriteLine(result.Warnings.Count == 0 ? "  warnings: none" : $"  warnings: {result.Warnings.Count} (above)");
         if (loadedScenario is not null)
         {
-            output.WriteLine($"  scenario: {loadedScenario.Name} ({scenario}): {loadedScenario.Site.Name}, {loadedScenario.Start:yyyy-MM-dd}, " +
+            output.WriteLine($"  scenario: {loadedScenario.Name} ({scenario}): {loadedScenario.Site.Name}, {loadedScenario.Start.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)}, " +
                 $"{loadedScenario.Nights} night{(loadedScenario.Nights == 1 ? "" : "s")}, {loadedScenario.Events.Count} event definition{(loadedScenario.Events.Count == 1 ? "" : "s")}, seed {loadedScenario.Seed}");
             foreach (ScenarioError w in loadedScenario.Warnings) error.WriteLine(w.ToString());
         }

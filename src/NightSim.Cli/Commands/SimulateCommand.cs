@@ -60,14 +60,19 @@ internal static class SimulateCommand
         command.SetAction(pr => CliErrors.Run(pr, (output, error) =>
         {
             FileInfo net = pr.GetValue(netlist)!;
+            if (!net.Exists)
+            {
+                error.WriteLine($"{net}: error at $: file not found. hint: check the path");
+                return CliErrors.InvalidInput;
+            }
             string? durationText = pr.GetValue(duration);
             string? scenarioPath = pr.GetValue(scenario)?.ToString()
                 ?? (durationText is null ? SimulateNight.CompanionScenario(net.ToString()) : null);
             if (scenarioPath is not null)
             {
-                if (pr.GetValue(nights) is int n && n < 1)
+                if (pr.GetValue(nights) is int n && n is < 1 or > 3660)
                 {
-                    error.WriteLine("--nights: give at least 1 night");
+                    error.WriteLine("--nights: give 1 to 3660 nights (ten years)");
                     return CliErrors.InvalidInput;
                 }
                 var settings = new SimulateNight.Settings(net.ToString(), scenarioPath, pr.GetValue(nights), pr.GetValue(outDir)!,

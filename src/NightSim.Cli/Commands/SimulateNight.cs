@@ -45,6 +45,14 @@ internal static class SimulateNight
             return CliErrors.InvalidInput;
         }
         LightScenario scenario = ScenarioLoader.LoadOrThrow(s.ScenarioPath);
+        // The output folder is checked before the run, not after it: a file in its place is bad input.
+        string dir = s.Out.FullName;
+        if (File.Exists(dir))
+        {
+            error.WriteLine($"--out: {s.Out} is a file, not a folder. hint: give a folder name, e.g. --out out/night");
+            return CliErrors.InvalidInput;
+        }
+        Directory.CreateDirectory(dir);
         if (s.Nights is int n) scenario = scenario with { Nights = n };
 
         var request = new NightRunRequest
@@ -67,8 +75,7 @@ internal static class SimulateNight
         }
 
         NightReport report = result.Report;
-        string dir = s.Out.FullName;
-        Directory.CreateDirectory(dir);
+        RemoveOldPlots(dir);
         var written = new List<string>();
         string reportPath = Path.Combine(dir, "report.json");
         JsonReportWriter.Write(report, reportPath);
@@ -110,6 +117,18 @@ internal static class SimulateNight
         }
         if (plotWarning is not null) error.WriteLine("warning: " + plotWarning);
         return FailOn(report, s.FailOn);
+    }
+
+    /// <summary>Plots of an earlier run in the same folder would sit beside the new ones and mislead: remove them.</summary>
+    private static void RemoveOldPlots(string dir)
+    {
+        foreach (string pattern in (string[])["night-*", "zoom-*", "detail-*"])
+        {
+            foreach (string f in Directory.EnumerateFiles(dir, pattern))
+            {
+                if (f.EndsWith(".svg", StringComparison.Ordinal) || f.EndsWith(".png", StringComparison.Ordinal)) File.Delete(f);
+            }
+        }
     }
 
     /// <summary>Exit 4 when a finding is at or above --fail-on (warning or error), else 0.</summary>

@@ -36,10 +36,10 @@ internal static class SkyCommand
         cmd.Options.Add(days);
         cmd.Options.Add(format);
         cmd.Options.Add(plot);
-        cmd.SetAction(pr => Run(
+        cmd.SetAction(pr => CliErrors.Run(pr, (o, e) => Run(
             new SkySettings(pr.GetValue(lat), pr.GetValue(lon), pr.GetValue(tz)!, pr.GetValue(date)!, pr.GetValue(days),
                 pr.GetValue(format) ?? "text", pr.GetValue(plot)),
-            output ?? Console.Out, error ?? Console.Error));
+            output ?? o, error ?? e)));
         return cmd;
     }
 
@@ -55,10 +55,15 @@ internal static class SkyCommand
             return 2;
         }
         if (s.Days < 1 || s.Days > 3660) { error.WriteLine("error: --days must be 1…3660"); return 2; }
+        if (first.Year < 1 + 1 || first.AddDays(s.Days + 1).Year > 9998)
+        {
+            error.WriteLine("error: --date: give a date between the years 2 and 9997");
+            return 2;
+        }
         if (s.PlotFile is not null && !SkyPlot.IsSupported(s.PlotFile))
         {
             error.WriteLine($"error: --plot: \"{s.PlotFile}\" must end in .svg or .png");
-            return 1;
+            return 2;
         }
 
         var site = new Site("site", s.Latitude, s.Longitude, zone);

@@ -103,7 +103,7 @@ public static class NightAnalysis
             EarlyOffs = mine.Count(iv => IsEarlyOff(facts, iv)),
             ChatterBursts = ChatterBursts(facts, n.From, n.To).Count,
             RelayOperations = operations,
-            Missed = dark && mine.Count == 0 && n.To <= facts.Duration + 1,
+            Missed = facts.HasSwitchedLoad && dark && mine.Count == 0 && n.To <= facts.Duration + 1,
             OnAfterSunrise = afterSunrise,
             LoadEnergyWh = energy,
         };

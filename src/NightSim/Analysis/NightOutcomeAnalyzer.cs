@@ -38,6 +38,12 @@ public sealed class NightOutcomeAnalyzer : IResultAnalyzer
                     n.Sunrise);
             }
         }
+        if (!facts.HasSwitchedLoad)
+        {
+            yield return new Finding(Severity.Info, "no-switched-load",
+                "The circuit has no relay or named load, so there is no switch-on to report; the traces and plots show what it did.",
+                "Add a relay with \"load\" and \"loadPower\" to get switch-on times, causes and energy.");
+        }
         foreach (AttributedInterval iv in intervals.Where(i => i.Cause == LoadCause.PowerUp))
         {
             yield return new Finding(Severity.Info, "power-up-trigger",

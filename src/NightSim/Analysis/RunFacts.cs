@@ -75,11 +75,16 @@ public sealed record RunFacts
     public required double Duration { get; init; }
     public IReadOnlyList<NightWindow> Nights { get; init; } = [];
     public IReadOnlyList<LoadTransition> LoadTransitions { get; init; } = [];
+
+    /// <summary>False when the circuit has nothing to switch (no relay or named load): then no night can be "missed".</summary>
+    public bool HasSwitchedLoad { get; init; } = true;
     public IReadOnlyList<EventFact> Events { get; init; } = [];
     public IReadOnlyList<DiscreteEvent> DeviceEvents { get; init; } = [];
     public IReadOnlyList<TimerFacts> Timers { get; init; } = [];
 
-    /// <summary>Illuminance at the sensor from the sky alone (no events, no lamp), lux against run seconds; null if unknown.</summary>
+    /// <summary>Illuminance the scenario puts on the circuit's sensor channel (sky, weather and scheduled light events; not
+    /// the lamp's own light), lux against run seconds; null if unknown. Used to find when the evening light fell through
+    /// the switching level (events are seconds long and do not move that crossing).</summary>
     public Func<double, double>? SkyLux { get; init; }
 
     /// <summary>Illuminance at the sensor including every event, lux against run seconds; null if unknown.</summary>

@@ -57,7 +57,7 @@ public sealed class Capacitor : Device
             ParameterSpec.Number("leakageResistance", "Ω", "Leakage across the dielectric as a resistance.") with { Min = 1, Max = 1e18, ExclusiveGroup = "leakage" },
             ParameterSpec.Number("leakageCurrent", "A", "Leakage as a constant current at working voltage (smooth near 0 V).") with { Min = 0, Max = 1, ExclusiveGroup = "leakage" },
             ParameterSpec.Number("initialVoltage", "V", "Voltage across the capacitor at power-up (p minus n).") with { Min = -1e5, Max = 1e5 },
-            ParameterSpec.Number("tolerance", "", "Relative tolerance for spreads, e.g. \"20%\" or 0.2.") with { Default = 0.2, Min = 0, Max = 1 },
+            ParameterSpec.Number("tolerance", "", "Relative tolerance, e.g. \"20%\" or 0.2: recorded for tolerance spreads (a later feature); a single run uses the nominal value.") with { Default = 0.2, Min = 0, Max = 1 },
         ],
         Create = def =>
         [

@@ -56,7 +56,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     private static readonly ParameterSpec s_coilResistance = ParameterSpec.Number("coilResistance", "Ω", "Coil resistance") with { Default = 400.0, Min = 1e-3, Max = 1e7 };
     private static readonly ParameterSpec s_coilInductance = ParameterSpec.Number("coilInductance", "H", "Coil inductance") with { Default = 0.5, Min = 1e-9, Max = 1e3 };
     private static readonly ParameterSpec s_pullIn = ParameterSpec.Number("pullIn", "V", "Pull-in (must-operate) coil voltage") with { Default = 9.0, Min = 1e-3, Max = 1e4 };
-    private static readonly ParameterSpec s_dropOut = ParameterSpec.Number("dropOut", "V", "Drop-out (must-release) coil voltage") with { Default = 1.2, Min = 0, Max = 1e4 };
+    private static readonly ParameterSpec s_dropOut = ParameterSpec.Number("dropOut", "V", "Drop-out (must-release) coil voltage; above 0 V (a relay at 0 V would never release)") with { Default = 1.2, Min = 1e-3, Max = 1e4 };
     private static readonly ParameterSpec s_operateTime = ParameterSpec.Number("operateTime", "s", "Armature travel time after pull-in") with { Default = 3e-3, Min = 0, Max = 10 };
     private static readonly ParameterSpec s_releaseTime = ParameterSpec.Number("releaseTime", "s", "Armature travel time after drop-out") with { Default = 2e-3, Min = 0, Max = 10 };
     private static readonly ParameterSpec s_contactResistance = ParameterSpec.Number("contactResistance", "Ω", "Closed contact resistance") with { Default = 0.05, Min = 1e-6, Max = 1e3 };

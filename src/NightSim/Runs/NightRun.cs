@@ -121,12 +121,7 @@ public static class NightRun
         foreach (IGrouping<(string Node, NoiseQuantity Quantity), NoiseInjection> g in
                  profile.NoiseInjections.GroupBy(n => (n.Node, n.Quantity)))
         {
-            string node = g.Key.Node;
-            if (!nodes.Contains(node))
-            {
-                problems.Add($"{request.ScenarioPath ?? "scenario"}: error: noise at node '{node}', which netlist {request.NetlistPath} does not have. hint: nodes are {string.Join(", ", nodes.Take(12))}");
-                continue;
-            }
+            string node = g.Key.Node; // ScenarioFit has checked that the netlist has it
             NoiseInjection[] pulses = [.. g.OrderBy(n => n.Time)];
             devices.Add(new NoiseInjector($"noise.{node}.{(g.Key.Quantity == NoiseQuantity.Current ? "i" : "v")}", node,
                 [.. pulses.Select(p => p.Time)], [.. pulses.Select(p => p.Width)], [.. pulses.Select(p => p.Amplitude)],
@@ -140,18 +135,8 @@ public static class NightRun
         foreach (LampCoupling c in profile.LampCouplings)
         {
             int channel = profile.ChannelIndex(c.Channel);
-            Device? part = devices.FirstOrDefault(d => d.PartId == c.Part && d is ISwitchedLoad);
-            if (part is null)
-            {
-                string loads = string.Join(", ", devices.OfType<ISwitchedLoad>().Cast<Device>().Select(d => d.PartId).Distinct());
-                problems.Add($"{request.ScenarioPath ?? "scenario"}: error: lamp-coupling names part '{c.Part}', which is not a relay or switched load in {request.NetlistPath}. hint: switched loads: {(loads.Length > 0 ? loads : "none")}");
-                continue;
-            }
-            if (channel < 0)
-            {
-                problems.Add($"{request.ScenarioPath ?? "scenario"}: error: lamp-coupling channel '{c.Channel}' is not a light channel of the scenario. hint: channels: {string.Join(", ", profile.ChannelNames)}");
-                continue;
-            }
+            // ScenarioFit has checked that the part is a relay and the channel exists.
+            Device part = devices.First(d => d.PartId == c.Part && d is ISwitchedLoad);
             var load = (ISwitchedLoad)part;
             Func<bool> isOn = c.Contact is string contact && part is Relay relay
                 ? ContactQuery(relay, contact, problems, request)
@@ -182,12 +167,11 @@ public static class NightRun
         {
             foreach (ScheduledLightEvent e in profile.ScheduledEvents)
             {
-                if (e.Kind == "lamp-coupling") continue;
+                if (e.Kind is "lamp-coupling" or "noise") continue; // noise is listed below with its amplitude
                 events.Add(new ReportEvent(e.Kind, e.Start, e.End, e.PeakLux, e.Description));
             }
             foreach (NoiseInjection n in profile.NoiseInjections)
             {
-                if (events.Any(e => e.Kind == "noise" && e.Start == n.Instant)) continue;
                 events.Add(new ReportEvent("noise", n.Instant, facts.Clock(n.Time + n.Width), n.Amplitude, n.Description));
             }
             events.Sort((a, b) => a.Start.CompareTo(b.Start));

@@ -215,8 +215,8 @@ public static class NightTraces
     /// relay gives tens of thousands of steps; a plot shows about a thousand pixels).</summary>
     public const int MaxPlotPoints = 4000;
 
-    /// <summary>Thins a series to the first, the opposite extreme and the last point of each of
-    /// <see cref="MaxPlotPoints"/>/4 buckets, so no spike and no on/off burst disappears.</summary>
+    /// <summary>Thins a series to the first, the lowest, the highest and the last point of each of
+    /// <see cref="MaxPlotPoints"/>/4 buckets (in time order), so no spike, dip or on/off burst disappears.</summary>
     public static (double[] Times, double[] Values) Thin(IReadOnlyList<double> ts, IReadOnlyList<double> vs, double from, double to)
     {
         if (ts.Count <= MaxPlotPoints || to <= from) return ([.. ts], [.. vs]);
@@ -224,28 +224,29 @@ public static class NightTraces
         double width = (to - from) / buckets;
         var t = new List<double>(MaxPlotPoints);
         var v = new List<double>(MaxPlotPoints);
+        int lastAdded = -1;
         int i = 0;
         for (int b = 0; b < buckets && i < ts.Count; b++)
         {
             double end = b == buckets - 1 ? double.PositiveInfinity : from + (b + 1) * width;
-            int start = i;
-            double min = double.PositiveInfinity, max = double.NegativeInfinity;
+            int start = i, iMin = i, iMax = i;
             while (i < ts.Count && ts[i] < end)
             {
-                min = Math.Min(min, vs[i]);
-                max = Math.Max(max, vs[i]);
+                if (vs[i] < vs[iMin]) iMin = i;
+                if (vs[i] > vs[iMax]) iMax = i;
                 i++;
             }
             if (i == start) continue;
-            t.Add(ts[start]);
-            v.Add(vs[start]);
-            if (max > min)
+            // First, the two extremes in time order, last: at most four points, no dip or spike lost.
+            int last = i - 1;
+            int lo = Math.Min(iMin, iMax), hi = Math.Max(iMin, iMax);
+            foreach (int k in (int[])[start, lo, hi, last])
             {
-                t.Add(ts[start]);
-                v.Add(vs[start] == max ? min : max);
+                if (t.Count > 0 && k == lastAdded) continue;
+                t.Add(ts[k]);
+                v.Add(vs[k]);
+                lastAdded = k;
             }
-            t.Add(ts[i - 1]);
-            v.Add(vs[i - 1]);
         }
         return ([.. t], [.. v]);
     }

@@ -17,7 +17,10 @@ public static class RunFactsBuilder
     public static RunFacts Build(NightRunRequest request, LightProfile? profile, IReadOnlyList<Device> devices, SimulationResult sim, double stop)
     {
         NetlistDefinition net = request.Netlist;
-        int channel = profile is null ? -1 : Math.Max(0, profile.ChannelIndex(LightScenario.DefaultChannel));
+        // The channel the circuit's light sensor reads (the first sensor part's), not always "sensor".
+        string channelName = net.Parts.FirstOrDefault(p => p.Kind is "photoresistor" or "phototransistor" or "photodiode")
+            ?.Parameters.Text("channel", LightScenario.DefaultChannel) ?? LightScenario.DefaultChannel;
+        int channel = profile is null ? -1 : Math.Max(0, profile.ChannelIndex(channelName));
         Func<double, double>? lux = profile is null ? null : t => profile.Lux(channel, t);
 
         var nights = new List<NightWindow>();
@@ -39,6 +42,7 @@ public static class RunFactsBuilder
             Duration = sim.Succeeded ? stop : sim.StopTime,
             Nights = nights,
             LoadTransitions = LoadTransitions(devices, sim),
+            HasSwitchedLoad = devices.OfType<ISwitchedLoad>().Any(),
             Events = profile is null ? [] : Events(profile),
             DeviceEvents = sim.Events,
             Timers = TimerFactsExtractor.Extract(net, node => TimerFactsExtractor.DcSupply(net, node) ?? MeasuredSupply(sim, node)),
@@ -61,7 +65,13 @@ public static class RunFactsBuilder
             double power = byName.TryGetValue(e.Device, out Device? d) && d is ISwitchedLoad l ? l.LoadPower : 0;
             list.Add(new LoadTransition(e.Time, e.To == "on", e.Signal[5..], power, e.PartId));
         }
-        if (list.Count > 0 || devices.OfType<ISwitchedLoad>().Any(l => l.LoadName is not null)) return list;
+        // One load is analysed: the first named one (a design with several lamps would need one timeline each).
+        if (list.Count > 0)
+        {
+            (string part, string load) = (list[0].PartId, list[0].Load);
+            return list.Where(t => t.PartId == part && t.Load == load).ToList();
+        }
+        if (devices.OfType<ISwitchedLoad>().Any(l => l.LoadName is not null)) return list;
         foreach (DiscreteEvent e in sim.Events)
         {
             if (e.Signal == "coil") list.Add(new LoadTransition(e.Time, e.To == "pulled in", e.Device, 0, e.PartId));

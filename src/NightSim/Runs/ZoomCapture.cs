@@ -4,7 +4,8 @@ namespace NightSim.Runs;
 /// Full-resolution windows around switching events, captured during the run so a zoom plot shows every accepted point
 /// near the event (the night trace is decimated to min/max buckets). Keeps a ring of the last accepted points; when a
 /// watched state changes, copies the ring's last <see cref="Before"/> seconds and keeps appending for
-/// <see cref="After"/> seconds. Steady steps allocate nothing; a capture allocates once, at its event.
+/// <see cref="After"/> seconds. Steady steps outside a window allocate nothing; a window allocates when it opens and
+/// while it grows during its <see cref="After"/> seconds (at most a dozen windows a run).
 /// </summary>
 public sealed class ZoomCapture
 {

@@ -77,7 +77,7 @@ public sealed class SkyCommandTests
             byte[] head = File.ReadAllBytes(png)[..8];
             Assert.Equal(new byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A }, head); // PNG signature (ISO/IEC 15948)
             Assert.Equal(2, Directory.GetFiles(dir).Length); // no temp files left behind
-            Assert.Equal(1, Run("sky", "--lat", "52.1", "--lon", "8.6", "--tz", "UTC", "--date", "2026-12-21", "--plot", Path.Combine(dir, "x.gif")).Code);
+            Assert.Equal(2, Run("sky", "--lat", "52.1", "--lon", "8.6", "--tz", "UTC", "--date", "2026-12-21", "--plot", Path.Combine(dir, "x.gif")).Code);
         }
         finally
         {
