@@ -190,14 +190,6 @@ public sealed partial class TransientSolver
         foreach (Device d in _devices) d.PowerUp();
 
         Array.Clear(_x);
-        foreach (Device d in _devices)
-        {
-            if (d is Capacitor { InitialVoltage: double v0 } cap && cap.InnerNode >= 0)
-            {
-                int nn = _circuit.IndexOf(cap.Nodes[1]);
-                _x[cap.InnerNode] = v0 + (nn >= 0 ? _x[nn] : 0.0);
-            }
-        }
         if (_options.InitialVoltages is { } initial)
             foreach (var (node, v) in initial)
             {
@@ -205,6 +197,7 @@ public sealed partial class TransientSolver
                 if (i < 0) throw new ArgumentException($"initial voltage given for unknown node '{node}'", nameof(_options));
                 _x[i] = v;
             }
+        ApplyCapacitorStartVoltages();
 
         _ctx.SourceScale = SourceScaleAt(0.0);
         if (_options.Start == StartMode.OperatingPoint)
@@ -232,6 +225,34 @@ public sealed partial class TransientSolver
         Array.Copy(_gNew, _gOld, _gOld.Length);
         _h = _options.FixedStep ?? _options.RestartStep;
         _havePrev = false;
+    }
+
+    /// <summary>
+    /// Capacitors with an initial voltage: v(p) − v(n) = v0 at power-up, whichever side is grounded and in whatever order
+    /// the parts are listed. Passes repeat until nothing changes, so a chain (C2 from top to mid on C1 from mid to
+    /// ground) settles outward from ground.
+    /// </summary>
+    private void ApplyCapacitorStartVoltages()
+    {
+        int passes = 0;
+        bool changed = true;
+        while (changed && passes++ <= _devices.Length)
+        {
+            changed = false;
+            foreach (Device d in _devices)
+            {
+                if (d is not Capacitor { InitialVoltage: double v0 } cap) continue;
+                int p = cap.InnerNode, n = _circuit.IndexOf(cap.Nodes[1]);
+                int target = p >= 0 ? p : n;
+                if (target < 0) continue;
+                double value = p >= 0 ? v0 + (n >= 0 ? _x[n] : 0.0) : -v0;
+                if (_x[target] != value)
+                {
+                    _x[target] = value;
+                    changed = true;
+                }
+            }
+        }
     }
 
     /// <summary>Take one accepted step (possibly after rejections). False when the run is over (done or failed).</summary>
