@@ -42,4 +42,6 @@ public sealed class CurrentSource : Device
     public override void Load(LoadContext ctx) => ctx.AddCurrent(_p, _n, Waveform.Value(ctx.Time) * ctx.SourceScale);
 
     public override double NextBreakpoint(double time) => Waveform.NextBreakpoint(time);
+
+    public override double MaxStep => Waveform.MaxStep;
 }

@@ -43,6 +43,10 @@ public abstract class Device
     /// <summary>Commit history after an accepted step (ctx.X is the accepted solution at ctx.Time).</summary>
     public virtual void Accept(LoadContext ctx) { }
 
+    /// <summary>The longest step the device can be followed with, seconds (+∞: no limit). A sine source returns a fraction
+    /// of its period: smooth, cornerless inputs give no breakpoints and may not show in the error estimate.</summary>
+    public virtual double MaxStep => double.PositiveInfinity;
+
     /// <summary>The first time strictly after <paramref name="time"/> at which this device has a known edge
     /// (source corners, scheduled transitions), seconds; +∞ if none.</summary>
     public virtual double NextBreakpoint(double time) => double.PositiveInfinity;

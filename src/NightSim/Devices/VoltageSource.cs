@@ -65,4 +65,6 @@ public sealed class VoltageSource : Device
     }
 
     public override double NextBreakpoint(double time) => Waveform.NextBreakpoint(time);
+
+    public override double MaxStep => Waveform.MaxStep;
 }

@@ -134,6 +134,15 @@ public sealed class Waveform
         return Dc(p.Number("dc", 0));
     }
 
+    /// <summary>Steps per period a sine needs (second-order method, a few per cent of amplitude at most; common practice
+    /// for sampling a sinusoid finely enough to draw and to resolve threshold crossings).</summary>
+    public const double StepsPerSinePeriod = 20.0;
+
+    /// <summary>The longest step that still follows this waveform, seconds: 1/(20·f) for a sine, +∞ otherwise (corners of
+    /// pulses and piecewise-linear waveforms are breakpoints). A sine has no corners, and a node a source holds carries no
+    /// error estimate, so without this limit the step control would not see it at all.</summary>
+    public double MaxStep => Shape == WaveformShape.Sine && _values[2] > 0 ? 1.0 / (StepsPerSinePeriod * _values[2]) : double.PositiveInfinity;
+
     /// <summary>Value at run time <paramref name="time"/> (seconds), in the source's unit. Pure.</summary>
     public double Value(double time)
     {

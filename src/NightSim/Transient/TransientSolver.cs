@@ -30,6 +30,9 @@ public sealed partial class TransientSolver
     private readonly TransientOptions _options;
     private readonly ILightSignal? _light;
     private readonly Device[] _devices;
+
+    /// <summary>Longest step: the options' limit and every device's own (a sine source's fraction of its period), s.</summary>
+    private readonly double _maxStep;
     private readonly LoadContext _ctx;
     private readonly ILinearSolver _solver;
     private readonly int _n;
@@ -99,6 +102,8 @@ public sealed partial class TransientSolver
         _options = options ?? TransientOptions.Default;
         _light = light ?? circuit.Light;
         _devices = [.. circuit.Devices];
+        _maxStep = _options.MaxStep;
+        foreach (Device d in _devices) _maxStep = Math.Min(_maxStep, d.MaxStep);
         _n = circuit.Size;
         int slots = circuit.Pattern.Count;
         _slotRow = [.. circuit.Pattern.Rows];
@@ -270,7 +275,7 @@ public sealed partial class TransientSolver
         {
             // PlanStep: controller proposal, limits, breakpoint landing without sliver steps.
             double bp = NextBreakpoint(t);
-            double h = Math.Min(_h, _options.MaxStep);
+            double h = Math.Min(_h, _maxStep);
             if (_options.FixedStep is null) h = Math.Max(h, hMin);
             double dist = bp - t;
             bool landing = false;
