@@ -49,7 +49,7 @@ public static class ReportText
     public static readonly IReadOnlyList<string> MainsCautions =
     [
         "This design connects to mains. It is NOT isolated: every node, the light sensor included, can carry a lethal voltage while it is plugged in.",
-        "Fit a fuse (or fusible resistor) in the live feed, use an X2-class capacitor rated for the mains voltage as the dropper, and a bleeder resistor across it.",
+        "Fit a fuse (or fusible resistor) in the live feed; a capacitive-dropper supply needs an X2-class capacitor rated for the mains voltage and a bleeder resistor across it.",
         "Build it into a closed, insulating enclosure; never touch or adjust it while connected; switch mains loads only with contacts rated for them.",
         "NightSim is not a safety assessment. Follow your local electrical codes, and have mains wiring done or checked by a licensed electrician.",
     ];
