@@ -42,7 +42,7 @@ public static class NightRun
         ILightSignal? light = profile;
         if (profile is not null)
         {
-            AddNoise(request, profile, nodes, devices, problems);
+            AddNoise(profile, devices);
             light = Couple(request, profile, devices, problems);
         }
         if (problems.Count > 0) throw new RunInputException(problems);
@@ -116,7 +116,7 @@ public static class NightRun
         || net.Parts.Any(p => p.Kind == "voltage-source" &&
             (Math.Abs(p.Parameters.Number("dc", 0)) >= 50 || Math.Abs(p.Parameters.Object("sine")?.Number("amplitude", 0) ?? 0) >= 50));
 
-    private static void AddNoise(NightRunRequest request, LightProfile profile, List<string> nodes, List<Device> devices, List<string> problems)
+    private static void AddNoise(LightProfile profile, List<Device> devices)
     {
         foreach (IGrouping<(string Node, NoiseQuantity Quantity), NoiseInjection> g in
                  profile.NoiseInjections.GroupBy(n => (n.Node, n.Quantity)))
