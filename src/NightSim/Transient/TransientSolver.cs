@@ -350,7 +350,9 @@ public sealed partial class TransientSolver
             bool fired = false;
             if (_eventSource.Length > 0)
             {
-                EvaluateEvents(_xNew, t + h, _gNew, _gOld);
+                // On a landing the step ends exactly at the breakpoint; t + h can come out one ulp short of it, and a
+                // timed event function (t − t_due) would then read −ulp and miss its own breakpoint.
+                EvaluateEvents(_xNew, landing ? bp : t + h, _gNew, _gOld);
                 if (AnyFlip(_gOld, _gNew))
                 {
                     double hEvent = LocateAndRetake(t, h, restart);
