@@ -318,7 +318,10 @@ public sealed partial class TransientSolver
             }
 
             double hNext = h;
-            if (!restart && _options.FixedStep is null)
+            // A restart step of the restart size (after a jump or an event) has no usable error estimate; a backward-Euler
+            // fallback after Newton failures can be long, so it is held to the error test like any other step.
+            bool checkError = !restart || h > 10.0 * _options.RestartStep;
+            if (checkError && _options.FixedStep is null)
             {
                 double r = ErrorNorm();
                 bool atFloor = h <= hMin * (1.0 + 1e-9) && !landing;
