@@ -26,7 +26,7 @@ public sealed class PhotodiodeTests
     }
 
     // Open circuit (no load): the photocurrent forward-biases the junction to V = n·V_T·ln(I_ph/I_S + 1)
-    // (Shockley diode equation, check-values §10).
+    // (Shockley diode equation, check-values §10). The dark current is reverse leakage and adds nothing forward.
     [Fact]
     public void Open_Circuit_Voltage_Follows_The_Junction_Law()
     {
@@ -34,9 +34,21 @@ public sealed class PhotodiodeTests
         Photodiode d = Make(100.0);
         d.Setup(h);
         double vt = 1.380649e-23 * 300.15 / 1.602176634e-19;
-        double voc = vt * Math.Log(4.002e-6 / 1e-12 + 1.0);
+        double voc = vt * Math.Log(4.0e-6 / 1e-12 + 1.0);
         LoadContext ctx = h.Load(d, [voc, 0.0]);
         Assert.Equal(0.0, ctx.J[0], 1e-11);
+    }
+
+    // A dark, open photodiode stays at 0 V: its leakage flows only under reverse bias (and is 2 nA there).
+    [Fact]
+    public void Dark_Current_Is_Reverse_Leakage_Only()
+    {
+        var h = new StampHarness("a", "k");
+        Photodiode d = Make(0.0);
+        d.Setup(h);
+        Assert.Equal(0.0, h.Load(d, [0.0, 0.0]).J[0], 1e-15);
+        Assert.Equal(-2e-9, h.Load(d, [-5.0, 0.0]).J[0], 1e-11); // 5 V reverse: dark current out of the anode node (plus I_S and gmin, pA)
+        h.AssertJacobians(d, [-0.02, 0.0]);
     }
 
     [Fact]

@@ -121,10 +121,16 @@ public sealed class LongRunTests
         var solver = new TransientSolver(circuit, TransientOptions.Default);
         solver.Begin(1e9);
         for (int i = 0; i < 2000; i++) Assert.True(solver.Advance());
-        long before = GC.GetAllocatedBytesForCurrentThread();
-        for (int i = 0; i < 1000; i++) solver.Advance();
-        long allocated = GC.GetAllocatedBytesForCurrentThread() - before;
-        Assert.Equal(0, allocated);
+        // Measured over up to three windows of 1 000 steps: the runtime's tiered recompilation of a hot method can
+        // allocate once on this thread; an allocation in the step itself shows in every window.
+        var windows = new List<long>();
+        for (int w = 0; w < 3 && (windows.Count == 0 || windows[^1] != 0); w++)
+        {
+            long before = GC.GetAllocatedBytesForCurrentThread();
+            for (int i = 0; i < 1000; i++) solver.Advance();
+            windows.Add(GC.GetAllocatedBytesForCurrentThread() - before);
+        }
+        Assert.True(windows[^1] == 0, "bytes allocated per 1 000 steps: " + string.Join(", ", windows));
         Assert.True(solver.Statistics.AcceptedSteps >= 3000);
     }
 }

@@ -58,6 +58,9 @@ public sealed class Photodiode : Device
     /// <summary>Photocurrent plus dark current at the time in <paramref name="ctx"/>, A (cathode → anode inside).</summary>
     public double Photocurrent(LoadContext ctx) => _responsivity * _light.Lux(ctx) + _darkCurrent;
 
+    /// <summary>Voltage scale over which the dark (leakage) current sets in under reverse bias, volts.</summary>
+    public const double DarkVoltageScale = 0.05;
+
     public override void Setup(SetupContext setup)
     {
         _anode = setup.Node(Nodes[0]);
@@ -86,8 +89,14 @@ public sealed class Photodiode : Device
         }
         gd += ctx.Gmin;
         id += ctx.Gmin * v;
-        ctx.AddCurrent(_anode, _cathode, id - Photocurrent(ctx));
-        _slots.Add(ctx.G, gd);
+        // The dark current is reverse leakage: it flows under reverse bias and fades at zero bias, so a dark, open
+        // diode does not charge itself forward: I_dark·tanh(−v/0.05 V) for v < 0, nothing forward.
+        double light = _responsivity * _light.Lux(ctx);
+        double th = v < 0 ? Math.Tanh(-v / DarkVoltageScale) : 0.0;
+        double dark = _darkCurrent * th;
+        double gDark = v < 0 ? _darkCurrent * (1.0 - th * th) / DarkVoltageScale : 0.0;
+        ctx.AddCurrent(_anode, _cathode, id - light - dark);
+        _slots.Add(ctx.G, gd + gDark);
         ctx.AddCharge(_anode, _cathode, _capacitance * v);
         _slots.Add(ctx.C, _capacitance);
     }
