@@ -59,22 +59,29 @@ public sealed class LightInput
     /// <summary>The first corner of the part's own light waveform strictly after <paramref name="time"/>, s; +∞ if none.</summary>
     public double NextBreakpoint(double time)
     {
-        for (int k = 0; k < _times.Length; k++)
-            if (_times[k] > time) return _times[k];
-        return double.PositiveInfinity;
+        int k = FirstAfter(time);
+        return k < _times.Length ? _times[k] : double.PositiveInfinity;
     }
 
     private double Pwl(double time)
     {
         if (time <= _times[0]) return _values[0];
-        for (int k = 1; k < _times.Length; k++)
+        if (time >= _times[^1]) return _values[^1];
+        int k = FirstAfter(time); // _times[k - 1] <= time < _times[k]
+        double w = (time - _times[k - 1]) / (_times[k] - _times[k - 1]);
+        return _values[k - 1] + w * (_values[k] - _values[k - 1]);
+    }
+
+    /// <summary>Index of the first corner strictly after <paramref name="time"/> (binary search: a recorded day of
+    /// lux samples has thousands of corners and every device load asks).</summary>
+    private int FirstAfter(double time)
+    {
+        int lo = 0, hi = _times.Length;
+        while (lo < hi)
         {
-            if (time <= _times[k])
-            {
-                double w = (time - _times[k - 1]) / (_times[k] - _times[k - 1]);
-                return _values[k - 1] + w * (_values[k] - _values[k - 1]);
-            }
+            int mid = (lo + hi) >>> 1;
+            if (_times[mid] <= time) lo = mid + 1; else hi = mid;
         }
-        return _values[^1];
+        return lo;
     }
 }
