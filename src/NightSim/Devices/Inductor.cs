@@ -8,13 +8,7 @@ namespace NightSim.Devices;
 /// </summary>
 public sealed class Inductor : Device
 {
-    private int _p;
-    private int _n;
-    private int _k;
-    private int _pk;
-    private int _nk;
-    private int _kp;
-    private int _kn;
+    private BranchSlots _branch;
     private int _kk;
 
     /// <param name="inductance">Inductance in henries (&gt; 0).</param>
@@ -55,30 +49,21 @@ public sealed class Inductor : Device
     public double SeriesResistance { get; }
 
     /// <summary>Unknown index of the branch current (A, from p through the inductor to n); valid after Setup.</summary>
-    public int BranchIndex => _k;
+    public int BranchIndex => _branch.K;
 
     public override void Setup(SetupContext setup)
     {
-        _p = setup.Node(Nodes[0]);
-        _n = setup.Node(Nodes[1]);
-        _k = setup.Branch(Name + ".i");
-        _pk = setup.Slot(_p, _k);
-        _nk = setup.Slot(_n, _k);
-        _kp = setup.Slot(_k, _p);
-        _kn = setup.Slot(_k, _n);
-        _kk = setup.Slot(_k, _k);
+        _branch = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), Name + ".i");
+        _kk = setup.Slot(_branch.K, _branch.K);
     }
 
     public override void Load(LoadContext ctx)
     {
-        double i = ctx.X[_k];
-        ctx.AddCurrent(_p, _n, i);
-        ctx.J[_k] += ctx.V(_p) - ctx.V(_n) - SeriesResistance * i;
-        ctx.Q[_k] += -Inductance * i;
-        ctx.AddG(_pk, 1.0);
-        ctx.AddG(_nk, -1.0);
-        ctx.AddG(_kp, 1.0);
-        ctx.AddG(_kn, -1.0);
+        // Branch row: V(p) − V(n) − R·i − d(L·i)/dt = 0.
+        double i = ctx.X[_branch.K];
+        _branch.Load(ctx);
+        ctx.J[_branch.K] -= SeriesResistance * i;
+        ctx.Q[_branch.K] -= Inductance * i;
         ctx.AddG(_kk, -SeriesResistance);
         ctx.AddC(_kk, -Inductance);
     }

@@ -18,9 +18,7 @@ public sealed class NoiseInjector : Device
     private readonly double _coupling;
     private int _node;
     private int _source;
-    private int _branch;
-    private int _sk;
-    private int _ks;
+    private BranchSlots _branch;
     private PairSlots _cap;
 
     /// <param name="name">Device name.</param>
@@ -49,9 +47,7 @@ public sealed class NoiseInjector : Device
         _node = setup.Node(Nodes[0]);
         if (_asCurrent) return;
         _source = setup.InternalNode(Name + ".src");
-        _branch = setup.Branch(Name + ".i");
-        _sk = setup.Slot(_source, _branch);
-        _ks = setup.Slot(_branch, _source);
+        _branch = setup.BranchBetween(_source, -1, Name + ".i");
         _cap = setup.Pair(_source, _node);
     }
 
@@ -78,10 +74,8 @@ public sealed class NoiseInjector : Device
             if (_node >= 0) ctx.J[_node] -= v;
             return;
         }
-        ctx.J[_source] += ctx.X[_branch];
-        ctx.J[_branch] += ctx.X[_source] - v;
-        ctx.AddG(_sk, 1.0);
-        ctx.AddG(_ks, 1.0);
+        _branch.Load(ctx);
+        ctx.J[_branch.K] -= v;
         double dv = ctx.X[_source] - ctx.V(_node);
         ctx.AddCharge(_source, _node, _coupling * dv);
         _cap.Add(ctx.C, _coupling);

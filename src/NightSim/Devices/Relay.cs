@@ -82,8 +82,8 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     private readonly int[] _contactA;
     private readonly int[] _contactB;
     private readonly PairSlots[] _contactSlots;
-    private int _a, _b, _branch;
-    private int _sAB, _sBB, _sBrA, _sBrB, _sBrBr; // (a,br), (b,br), (br,a), (br,b), (br,br)
+    private BranchSlots _coil;
+    private int _sBrBr; // (br, br)
 
     private bool _energised;
     private bool _operated;
@@ -184,20 +184,14 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     public bool LoadOn => _settings.LoadName is not null && _settings.LoadNormallyClosed != _operated;
 
     /// <summary>Unknown index of the coil current (A → B), valid after Setup.</summary>
-    public int CoilCurrentIndex => _branch;
+    public int CoilCurrentIndex => _coil.K;
 
     public int EventCount => 2;
 
     public override void Setup(SetupContext setup)
     {
-        _a = setup.Node(Nodes[0]);
-        _b = setup.Node(Nodes[1]);
-        _branch = setup.Branch(Name + ".i");
-        _sAB = setup.Slot(_a, _branch);
-        _sBB = setup.Slot(_b, _branch);
-        _sBrA = setup.Slot(_branch, _a);
-        _sBrB = setup.Slot(_branch, _b);
-        _sBrBr = setup.Slot(_branch, _branch);
+        _coil = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), Name + ".i");
+        _sBrBr = setup.Slot(_coil.K, _coil.K);
         for (int k = 0; k < _contacts.Length; k++)
         {
             _contactA[k] = setup.Node(_contacts[k].A);
@@ -218,15 +212,11 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     public override void Load(LoadContext ctx)
     {
         // Coil: F_br = d/dt(−L·i) + (V_a − V_b − R·i) = 0; the coil current leaves node a and enters node b.
-        double i = ctx.X[_branch];
+        double i = ctx.X[_coil.K];
         double r = _settings.CoilResistance;
-        ctx.AddCurrent(_a, _b, i);
-        ctx.J[_branch] += ctx.V(_a) - ctx.V(_b) - r * i;
-        ctx.Q[_branch] -= _settings.CoilInductance * i;
-        ctx.AddG(_sAB, 1.0);
-        ctx.AddG(_sBB, -1.0);
-        ctx.AddG(_sBrA, 1.0);
-        ctx.AddG(_sBrB, -1.0);
+        _coil.Load(ctx);
+        ctx.J[_coil.K] -= r * i;
+        ctx.Q[_coil.K] -= _settings.CoilInductance * i;
         ctx.AddG(_sBrBr, -r);
         ctx.AddC(_sBrBr, -_settings.CoilInductance);
 
@@ -247,7 +237,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     {
         if (index == 0)
         {
-            double i = Math.Abs(ctx.X[_branch]);
+            double i = Math.Abs(ctx.X[_coil.K]);
             double r = _settings.CoilResistance;
             return _energised ? _settings.DropOut / r - i : i - _settings.PullIn / r;
         }

@@ -25,6 +25,33 @@ public abstract class SetupContext
 
     /// <summary>Reserve the four slots of a conductance between nodes a and b.</summary>
     public PairSlots Pair(int a, int b) => new(Slot(a, a), Slot(a, b), Slot(b, a), Slot(b, b));
+
+    /// <summary>Reserve a branch-current unknown between nodes a and b and the four slots that tie it to them
+    /// (voltage sources, inductors, relay coils).</summary>
+    public BranchSlots BranchBetween(int a, int b, string label)
+    {
+        int k = Branch(label);
+        return new BranchSlots(a, b, k, Slot(a, k), Slot(b, k), Slot(k, a), Slot(k, b));
+    }
+}
+
+/// <summary>
+/// A branch current i (unknown <see cref="K"/>) flowing from node A through the element to node B: KCL terms ±i on the
+/// node rows and the voltage V(A) − V(B) on the branch row, with their ±1 Jacobian entries. The element adds the rest
+/// of its branch equation (−V(t) for a source, −R·i and the flux −L·i for a coil).
+/// </summary>
+public readonly record struct BranchSlots(int A, int B, int K, int AK, int BK, int KA, int KB)
+{
+    /// <summary>Add the incidence terms at the iterate in <paramref name="ctx"/>.</summary>
+    public void Load(LoadContext ctx)
+    {
+        ctx.AddCurrent(A, B, ctx.X[K]);
+        ctx.J[K] += ctx.V(A) - ctx.V(B);
+        ctx.AddG(AK, 1.0);
+        ctx.AddG(BK, -1.0);
+        ctx.AddG(KA, 1.0);
+        ctx.AddG(KB, -1.0);
+    }
 }
 
 /// <summary>The four matrix slots of a two-node element; any may be -1 (ground).</summary>

@@ -8,13 +8,7 @@ namespace NightSim.Devices;
 /// </summary>
 public sealed class VoltageSource : Device
 {
-    private int _p;
-    private int _n;
-    private int _k;
-    private int _pk;
-    private int _nk;
-    private int _kp;
-    private int _kn;
+    private BranchSlots _branch;
 
     public VoltageSource(string name, string partId, string nodeP, string nodeN, Waveform waveform)
         : base(name, partId, [nodeP, nodeN])
@@ -40,28 +34,17 @@ public sealed class VoltageSource : Device
     public Waveform Waveform { get; }
 
     /// <summary>Unknown index of the branch current (A, from p through the source to n); valid after Setup.</summary>
-    public int BranchIndex => _k;
+    public int BranchIndex => _branch.K;
 
     public override void Setup(SetupContext setup)
     {
-        _p = setup.Node(Nodes[0]);
-        _n = setup.Node(Nodes[1]);
-        _k = setup.Branch(Name + ".i");
-        _pk = setup.Slot(_p, _k);
-        _nk = setup.Slot(_n, _k);
-        _kp = setup.Slot(_k, _p);
-        _kn = setup.Slot(_k, _n);
+        _branch = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), Name + ".i");
     }
 
     public override void Load(LoadContext ctx)
     {
-        double i = ctx.X[_k];
-        ctx.AddCurrent(_p, _n, i);
-        ctx.J[_k] += ctx.V(_p) - ctx.V(_n) - Waveform.Value(ctx.Time) * ctx.SourceScale;
-        ctx.AddG(_pk, 1.0);
-        ctx.AddG(_nk, -1.0);
-        ctx.AddG(_kp, 1.0);
-        ctx.AddG(_kn, -1.0);
+        _branch.Load(ctx);
+        ctx.J[_branch.K] -= Waveform.Value(ctx.Time) * ctx.SourceScale;
     }
 
     public override double NextBreakpoint(double time) => Waveform.NextBreakpoint(time);
