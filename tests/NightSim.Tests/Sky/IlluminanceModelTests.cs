@@ -5,7 +5,7 @@ namespace NightSim.Tests.Sky;
 public sealed class IlluminanceModelTests
 {
     [Theory]
-    // check-values §2 table: USNO Circular 171 model, Sun only, sky 1 [CALC from the published formula]; ±0.5 %.
+    // USNO Circular 171 (Janiczek & DeYoung, 1987) model, Sun only, sky 1, evaluated from its published formula; ±0.5 %.
     [InlineData(60, 103000)]
     [InlineData(30, 51320)]
     [InlineData(10, 11230)]
@@ -27,7 +27,7 @@ public sealed class IlluminanceModelTests
     [Fact]
     public void NightFloor_AddsHalfMillilux()
     {
-        // check-values §2: E(−12°) = 4.87e-3 lx with the 0.0005 lx floor.
+        // USNO Circular 171 model from its published formula: E(−12°) = 4.87e-3 lx with the 0.0005 lx floor.
         Assert.InRange(IlluminanceModel.SkyLux(-12), 4.87e-3 * 0.99, 4.87e-3 * 1.01);
         Assert.Equal(0.0005, IlluminanceModel.SkyLux(-40), 6);
     }
@@ -35,7 +35,7 @@ public sealed class IlluminanceModelTests
     [Fact]
     public void EndOfCivilTwilight_InsidePublishedBand()
     {
-        // AMS Glossary of Meteorology: end of civil twilight 2–3.5 lx (check-values Q4).
+        // AMS Glossary of Meteorology: end of civil twilight 2–3.5 lx.
         double e = IlluminanceModel.SkyLux(-6.0);
         Assert.InRange(e, 2.0, 3.5);
     }
@@ -49,13 +49,42 @@ public sealed class IlluminanceModelTests
     }
 
     [Fact]
-    public void RefractionSwitch_StepNearMinusFiveSixths_NotAssertedAtTheSwitch()
+    public void BranchJoint_EachBranchMatchesItsPublishedValues()
     {
-        // check-values §2 / pitfall 9: E(−0.84°) = 435.7 lx; just above −5/6° the model is ≈ 662 lx (≈ 34 % step).
-        Assert.InRange(IlluminanceModel.SunLux(-0.84), 435.7 * 0.99, 435.7 * 1.01);
-        double above = IlluminanceModel.SunLux(-0.833);
-        Assert.InRange(above, 662 * 0.98, 662 * 1.02);
-        Assert.True(above / IlluminanceModel.SunLux(-0.84) > 1.3);
+        // USNO Circular 171 (Janiczek & DeYoung, 1987), model evaluated from its published formula: the day branch
+        // (refraction term) gives 984.5 lx at 0°, the twilight branch 386.8 lx at −1° and 435.7 lx at −0.84°, and the
+        // day branch ≈ 662 lx just above −5/6°. The joined curve equals each branch outside the band.
+        Assert.InRange(IlluminanceModel.Branch(0, refraction: true), 984.5 * 0.995, 984.5 * 1.005);
+        Assert.InRange(IlluminanceModel.Branch(-0.84, refraction: false), 435.7 * 0.995, 435.7 * 1.005);
+        Assert.InRange(IlluminanceModel.Branch(-0.833, refraction: true), 662 * 0.98, 662 * 1.02);
+        Assert.InRange(IlluminanceModel.Branch(-1, refraction: false), 386.8 * 0.995, 386.8 * 1.005);
+        foreach (double h in new[] { -3.0, -1.5, IlluminanceModel.BlendLowElevation })
+            Assert.Equal(IlluminanceModel.Branch(h, refraction: false), IlluminanceModel.SunLux(h), 12);
+        foreach (double h in new[] { IlluminanceModel.BlendHighElevation, -0.5, 0.0, 5.0 })
+            Assert.Equal(IlluminanceModel.Branch(h, refraction: true), IlluminanceModel.SunLux(h), 12);
+        // Inside the band the joint lies between the two branches.
+        double mid = IlluminanceModel.SunLux(IlluminanceModel.RefractionSwitchElevation);
+        Assert.InRange(mid, IlluminanceModel.Branch(IlluminanceModel.RefractionSwitchElevation, false),
+            IlluminanceModel.Branch(IlluminanceModel.RefractionSwitchElevation, true));
+    }
+
+    [Fact]
+    public void BranchJoint_IsContinuousWithContinuousSlope()
+    {
+        // The published model steps by ≈ 34 % at −5/6° (same source); the joined curve changes by less than 0.05 % per
+        // 0.0001° anywhere from −2° to +1° (a step would show as one large ratio), and its logarithmic slope changes
+        // smoothly (no kink at the band edges: second differences stay small).
+        double prev = IlluminanceModel.SunLux(-2.0), prevSlope = double.NaN;
+        const double dh = 1e-4;
+        for (double h = -2.0 + dh; h <= 1.0; h += dh)
+        {
+            double e = IlluminanceModel.SunLux(h);
+            double slope = Math.Log(e / prev) / dh;
+            Assert.InRange(e / prev, 1.0, 1.0005);
+            if (!double.IsNaN(prevSlope)) Assert.True(Math.Abs(slope - prevSlope) < 0.01, $"slope jumps at {h}°: {prevSlope} → {slope} per degree");
+            prev = e;
+            prevSlope = slope;
+        }
     }
 
     [Fact]
@@ -71,7 +100,8 @@ public sealed class IlluminanceModelTests
     }
 
     [Theory]
-    // check-values §2 (CALC): elevation where model + floor reaches a level; ±0.05°.
+    // USNO Circular 171 model from its published formula, solved for elevation (own calculation): where model + floor
+    // reaches a level; ±0.05°.
     [InlineData(10.0, 1.0, -4.86)]
     [InlineData(10.0, 2.0, -4.20)]
     [InlineData(10.0, 3.0, -3.80)]
