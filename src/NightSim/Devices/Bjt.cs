@@ -4,7 +4,8 @@ namespace NightSim.Devices;
 
 /// <summary>
 /// Bipolar transistor, npn or pnp, Ebers–Moll transport form with Early effect and junction charges
-/// (Ebers &amp; Moll 1954; check-values.md §10):
+/// (Ebers &amp; Moll, "Large-signal behavior of junction transistors", Proc. IRE 42, 1954; Sedra &amp; Smith,
+/// Microelectronic Circuits):
 /// I_F = I_S(e^(V_BE/(N·V_T)) − 1), I_R = I_S(e^(V_BC/(N·V_T)) − 1), I_CT = (I_F − I_R)(1 − V_BC/V_AF),
 /// I_C = I_CT − I_R/β_R, I_B = I_F/β_F + I_R/β_R. A pnp is the npn with every voltage and current reversed.
 /// Charges: q_BE = depletion(V_BE) + τ_F·I_F, q_BC = depletion(V_BC) + τ_R·I_R. Pins: c, b, e.

@@ -6,7 +6,8 @@ namespace NightSim.Devices;
 /// Junction diode, anode a to cathode k: Shockley law I = I_S(e^(V/(N·V_T)) − 1) with series resistance, depletion and
 /// diffusion charge, and optional reverse breakdown I_bd = −I_BV·e^(−(V + BV)/(N_bv·V_T)) (used by the Zener kind).
 /// </summary>
-/// <remarks>Equations from Shockley 1949 and the textbook junction model (check-values.md §10). With a series
+/// <remarks>Equations from Shockley (Bell Syst. Tech. J. 28, 1949) and the textbook junction model (Sedra &amp; Smith,
+/// Microelectronic Circuits). With a series
 /// resistance the device reserves an internal node "&lt;name&gt;.j" between the resistance and the junction.</remarks>
 public sealed class Diode : Device
 {

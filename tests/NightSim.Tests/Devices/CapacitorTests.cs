@@ -49,7 +49,8 @@ public sealed class CapacitorTests
     [Fact]
     public void Leakage_Current_Is_Constant_At_Working_Voltage_And_Vanishes_At_Zero()
     {
-        // Electrolytic leakage limit 0.01·C·V for 1000 µF / 16 V = 160 µA (check-values Q9, [PRACTICE], IEC 60384-4 convention).
+        // Electrolytic leakage limit 0.01·C·V for 1000 µF / 16 V = 160 µA (the catalogue
+        // convention used with the IEC 60384-4 leakage test; common practice).
         double iLeak = 0.01 * 1000 * 16 * 1e-6;
         var h = new StampHarness("p");
         var c = new Capacitor("C1", "C1", "p", "0", 1000e-6, leakageCurrent: iLeak);

@@ -14,14 +14,17 @@ public sealed class DiodeTests
     [Fact]
     public void Critical_Voltage_Is_0_7303_V_For_1e14_A()
     {
-        // numerics.md §6: V_crit = V_T ln(V_T/(√2 I_S)) = 0.7303 V for I_S 1e-14 A, N 1, 27 °C.
+        // Critical voltage of junction limiting (Vlach & Singhal, Computer Methods for Circuit Analysis and Design,
+        // 2nd ed., 1994; docs/numerics.md §6): V_crit = V_T ln(V_T/(√2 I_S)) = 0.7303 V for I_S 1e-14 A, N 1, 27 °C,
+        // computed from that formula.
         Assert.Equal(0.7303, new Diode("D1", "D1", "a", "0").CriticalVoltage, 4);
     }
 
     [Fact]
     public void Forward_Voltage_At_1_mA_Is_0_6551_V()
     {
-        // check-values.md Q15 (textbook junction, I_S 1e-14 A, N 1): V(1 mA) = 0.6551 V ± 0.1 mV.
+        // Shockley diode equation (Shockley, Bell Syst. Tech. J. 28, 1949): V = N·V_T·ln(I/I_S + 1); I_S 1e-14 A, N 1,
+        // 27 °C → V(1 mA) = 0.6551 V (computed from that formula), ± 0.1 mV.
         var d = new Diode("D1", "D1", "a", "0");
         double v = s_vt * Math.Log(1e-3 / 1e-14 + 1);
         Assert.Equal(1e-3, d.Current(v, out _), 12);
@@ -68,7 +71,9 @@ public sealed class DiodeTests
     [Fact]
     public void Diode_And_Resistor_Match_The_Lambert_W_Solution()
     {
-        // check-values.md Q16: 5 V, 1 kΩ, I_S 1e-14 A, N 1 → I = 4.3071 mA, V_D = 0.69289 V (Corless et al. 1996).
+        // Diode and resistor in series, solved exactly with the Lambert W function (Corless, Gonnet, Hare, Jeffrey &
+        // Knuth, "On the Lambert W function", Adv. Comput. Math. 5, 1996): 5 V, 1 kΩ, I_S 1e-14 A, N 1 → I = 4.3071 mA,
+        // V_D = 0.69289 V (computed from that closed form).
         const double V = 5, R = 1e3, Is = 1e-14;
         double n = s_vt;
         double exact = n / R * LambertW.W0(Is * R / n * Math.Exp((V + Is * R) / n)) - Is;

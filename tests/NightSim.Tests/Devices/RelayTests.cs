@@ -6,7 +6,7 @@ namespace NightSim.Tests.Devices;
 
 public sealed class RelayTests
 {
-    // Generic 12 V relay class (check-values §8, common practice): 400 Ω, pull-in 9.0 V, drop-out 1.2 V, operate
+    // Generic 12 V relay class (common practice): 400 Ω, pull-in 9.0 V, drop-out 1.2 V, operate
     // ≤ 10 ms, release ≤ 5 ms; coil inductance 0.5 H from memory. These are the defaults of RelaySettings.
     private static readonly RelaySettings s_class = new();
 
@@ -93,7 +93,7 @@ public sealed class RelayTests
         Assert.Equal(12.0, r.Trace("nc")!.At(25.0), 1e-2);
     }
 
-    // A 12 V step closes the contacts within the class operate time of 10 ms (check-values §8, common practice):
+    // A 12 V step closes the contacts within the class operate time of 10 ms (common practice):
     // τ·ln(4) = 1.73 ms to reach 22.5 mA of 30 mA, plus 3 ms travel. Held at 1.3 V it holds; at 1.1 V it releases.
     [Fact]
     public void Step_Operates_Within_10ms_And_Holds_Until_Below_Drop_Out()
@@ -114,10 +114,11 @@ public sealed class RelayTests
         Assert.True(open[0] > 0.2, "1.3 V must hold the relay; 1.1 V releases it");
     }
 
-    // Flyback diode (check-values §8, common practice): when the driver opens, the coil current freewheels through the
+    // Flyback diode (common practice): when the driver opens, the coil current freewheels through the
     // diode, which clamps the coil's low side at V_CC + V_D instead of a kilovolt kick, and lengthens the release: with an
     // ideal 0.6–0.7 V diode the current falls from 30 mA to the 3 mA drop-out current in
-    // τ·ln((I0 + V_D/R)/(I_do + V_D/R)) = 2.38–2.43 ms, τ = L/R = 1.25 ms (R-L freewheel, check-values §8 [CALC]).
+    // τ·ln((I0 + V_D/R)/(I_do + V_D/R)) = 2.38–2.43 ms, τ = L/R = 1.25 ms (R-L freewheel with a constant diode drop, solved by
+    // hand).
     [Fact]
     public void Flyback_Diode_Clamps_The_Coil_And_Delays_Release()
     {

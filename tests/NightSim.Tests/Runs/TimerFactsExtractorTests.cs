@@ -11,7 +11,7 @@ public class TimerFactsExtractorTests
         new(id, kind, new Dictionary<string, string> { [PartCatalog.Find(kind)!.Pins[0]] = a, [PartCatalog.Find(kind)!.Pins[1]] = b },
             new PartParameters(p.ToDictionary(x => x.Name, x => x.Value)));
 
-    // The worked case of check-values §7: 1 MΩ from 12 V, 100 µF with 1 µA leakage → 129.93 s ([CALC], textbook
+    // Worked case: 1 MΩ from 12 V, 100 µF with 1 µA leakage → 129.93 s (computed from textbook
     // RC charging with a constant drain).
     [Fact]
     public void ReadsTheTimingNetworkAndLeakage()

@@ -5,7 +5,8 @@ namespace NightSim.Tests.Sky;
 public sealed class IlluminanceModelTests
 {
     [Theory]
-    // USNO Circular 171 (Janiczek & DeYoung, 1987) model, Sun only, sky 1, evaluated from its published formula; ±0.5 %.
+    // USNO Circular No. 171 (Janiczek & DeYoung, 1987) illuminance model, Sun only, sky 1: values computed from the
+    // published formula, not read from the circular's tables; ±0.5 %.
     [InlineData(60, 103000)]
     [InlineData(30, 51320)]
     [InlineData(10, 11230)]
@@ -27,7 +28,7 @@ public sealed class IlluminanceModelTests
     [Fact]
     public void NightFloor_AddsHalfMillilux()
     {
-        // USNO Circular 171 model from its published formula: E(−12°) = 4.87e-3 lx with the 0.0005 lx floor.
+        // Same model and computation: E(−12°) = 4.87e-3 lx including the circular's 0.0005 lx night-sky term.
         Assert.InRange(IlluminanceModel.SkyLux(-12), 4.87e-3 * 0.99, 4.87e-3 * 1.01);
         Assert.Equal(0.0005, IlluminanceModel.SkyLux(-40), 6);
     }
@@ -35,7 +36,7 @@ public sealed class IlluminanceModelTests
     [Fact]
     public void EndOfCivilTwilight_InsidePublishedBand()
     {
-        // AMS Glossary of Meteorology: end of civil twilight 2–3.5 lx.
+        // AMS Glossary of Meteorology: end of civil twilight 2–3.5 lx (American Meteorological Society).
         double e = IlluminanceModel.SkyLux(-6.0);
         Assert.InRange(e, 2.0, 3.5);
     }
@@ -100,8 +101,8 @@ public sealed class IlluminanceModelTests
     }
 
     [Theory]
-    // USNO Circular 171 model from its published formula, solved for elevation (own calculation): where model + floor
-    // reaches a level; ±0.05°.
+    // Elevation where the USNO Circular No. 171 model plus its 0.0005 lx term reaches a level, solved numerically from
+    // the published formula (computed); ±0.05°.
     [InlineData(10.0, 1.0, -4.86)]
     [InlineData(10.0, 2.0, -4.20)]
     [InlineData(10.0, 3.0, -3.80)]

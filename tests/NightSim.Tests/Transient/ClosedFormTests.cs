@@ -4,7 +4,8 @@ using NightSim.Transient;
 
 namespace NightSim.Tests.Transient;
 
-/// <summary>RL rise and series RLC ringing against their closed forms (circuit-theory textbooks; numerics.md §9).</summary>
+/// <summary>RL rise and series RLC ringing against their closed forms (circuit-theory textbooks, e.g. Nilsson &amp; Riedel, Electric
+/// Circuits, chs. 7–8; docs/numerics.md §9).</summary>
 public sealed class ClosedFormTests
 {
     [Fact]
@@ -83,7 +84,7 @@ public sealed class ClosedFormTests
     [InlineData(IntegrationMethod.BackwardEuler, 1.0)]
     public void Observed_Order_On_Rc_Matches_The_Method(IntegrationMethod method, double order)
     {
-        // Fixed steps h, h/2, h/4 with control off (numerics.md §9, "Order"): p_obs = log2(e_h / e_{h/2}).
+        // Fixed steps h, h/2, h/4 with control off (docs/numerics.md §9): p_obs = log2(e_h / e_{h/2}).
         const double R = 1e3, C = 1e-6, V0 = 1, T = 1e-3;
         double Error(double h)
         {
@@ -119,7 +120,8 @@ public sealed class ClosedFormTests
     [InlineData(IntegrationMethod.BackwardEuler)]
     public void One_Step_On_An_Rc_Equals_The_Amplification_Factor(IntegrationMethod method)
     {
-        // y' = λy, z = λh: BE 1/(1 − z); TR (1 + z/2)/(1 − z/2); TR-BDF2 (a(1 + dz)/(1 − dz) − b)/(1 − dz) (numerics.md §9).
+        // y' = λy, z = λh: BE 1/(1 − z); TR (1 + z/2)/(1 − z/2); TR-BDF2 (a(1 + dz)/(1 − dz) − b)/(1 − dz), from the
+        // stage equations (Bank et al. 1985; docs/numerics.md §1).
         const double R = 1e3, C = 1e-6, h = 0.3e-3;
         double z = -h / (R * C);
         double g = 2 - Math.Sqrt(2), d = g / 2, a = 1 / (g * (2 - g)), b = (1 - g) * (1 - g) / (g * (2 - g));

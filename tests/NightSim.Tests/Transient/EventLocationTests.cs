@@ -8,7 +8,7 @@ namespace NightSim.Tests.Transient;
 
 /// <summary>
 /// Event location on real re-taken steps: the located time must not depend on how long the step was in which the
-/// crossing fell (numerics.md §5).
+/// crossing fell (docs/numerics.md §5).
 /// </summary>
 public sealed class EventLocationTests
 {

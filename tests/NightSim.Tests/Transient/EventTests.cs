@@ -13,8 +13,8 @@ public sealed class EventTests
     private static (Circuit Circuit, ThresholdSwitch First, ThresholdSwitch Second) Timer()
     {
         // RC charging to 12 V; a threshold at 2/3 of the supply (8 V) is crossed at t* = RC·ln 3 = 1.0986 s
-        // (RC closed form; the 555 one-shot relation T = RC ln 3, check-values.md). The first switch then loads node
-        // "out"; the second follows the first in the same logic pass.
+        // (RC closed form v = V(1 − e^(−t/RC)) solved for 2V/3). The first switch then
+        // loads node "out"; the second follows the first in the same logic pass.
         var first = new ThresholdSwitch("U1", "cap", "out", "0", 2.0 / 3.0 * V, 1e3);
         var second = new ThresholdSwitch("U2", "cap", "out2", "0", 0, 1e3, follow: first);
         var circuit = Circuit.FromDevices("timer",

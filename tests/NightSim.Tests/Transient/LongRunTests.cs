@@ -68,7 +68,7 @@ public sealed class LongRunTests
     public void A_Pulse_One_Year_In_Is_Resolved_As_Well_As_One_At_The_Start()
     {
         // At t ≈ 3.15e7 s one ulp of a double is 3.7 ns: the 100 ns edges and the 1 µs pulse must still come out as
-        // at t = 0 (time is landed on by assignment and steps are carried, never differenced; numerics.md §3).
+        // at t = 0 (time is landed on by assignment and steps are carried, never differenced; docs/numerics.md §3).
         double year = 365.25 * 86400;
         double Peak(double delay)
         {

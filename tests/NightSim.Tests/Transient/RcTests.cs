@@ -5,7 +5,7 @@ using NightSim.Transient;
 namespace NightSim.Tests.Transient;
 
 /// <summary>RC charge and discharge against the exponential closed form v = V(1 − e^(−t/RC)) (any circuits textbook;
-/// numerics.md §9).</summary>
+/// docs/numerics.md §9).</summary>
 public sealed class RcTests
 {
     private const double R = 1e3, C = 1e-6, V = 5.0, Tau = R * C;
