@@ -7,6 +7,8 @@ using NightSim.Results;
 using NightSim.Transient;
 using NightSim.Units;
 using NightSim.Cli.Rendering;
+using NightSim.Devices;
+using NightSim.Devices.Light;
 
 namespace NightSim.Cli.Commands;
 
@@ -34,7 +36,11 @@ internal static class SimulateCommand
         var failOn = new Option<string?>("--fail-on") { Description = "Exit with code 4 when a finding is at or above this severity.", HelpName = "warning|error" };
         failOn.AcceptOnlyFromAmong("warning", "error");
         var noPlots = new Option<bool>("--no-plots") { Description = "Skip the SVG/PNG plots (faster; report.html then has no figures)." };
-        var lux = new Option<string?>("--lux") { Description = "Constant illuminance on every light sensor, lux (default 0).", HelpName = "VALUE" };
+        var lux = new Option<string?>("--lux")
+        {
+            Description = "Constant illuminance, lux (default 0), for --for runs: applies to every light sensor without its own lux or lux points; a sensor with its own keeps them (a warning names it).",
+            HelpName = "VALUE",
+        };
         var outDir = new Option<DirectoryInfo>("--out")
         {
             Description = "Output folder for trace.csv and statistics.json (created if missing).",
@@ -119,6 +125,14 @@ internal static class SimulateCommand
         }
 
         Circuit circuit = Circuit.Build(def);
+        if (luxText is not null)
+        {
+            var sensors = circuit.Devices.OfType<ILightSensor>().Select(d => (Id: ((Device)d).PartId, d.Light.HasOwnLight)).Distinct().ToList();
+            foreach (var (id, _) in sensors.Where(s => s.HasOwnLight))
+                error.WriteLine($"warning: --lux does not apply to {id}: it has its own lux or lux points in {path}, which it keeps. hint: remove them from the part to drive it with --lux");
+            if (sensors.Count == 0)
+                error.WriteLine($"warning: --lux has no effect: {path} has no light sensor");
+        }
         IReadOnlyList<string>? record = null;
         if (!string.IsNullOrWhiteSpace(nodeList))
         {

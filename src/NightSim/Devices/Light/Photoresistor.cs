@@ -18,7 +18,7 @@ namespace NightSim.Devices.Light;
 /// the step's two ends (trapezoid). Load evaluates it at the iterate's time (consistent inside a step); Accept commits
 /// it. Before the first accepted point the cell is in steady state with its light.
 /// </remarks>
-public sealed class Photoresistor : Device
+public sealed class Photoresistor : Device, ILightSensor
 {
     private static readonly ParameterSpec s_r10 = ParameterSpec.Number("r10", "Ω", "Resistance at 10 lx") with { Default = 15e3, Min = 1, Max = 1e9 };
     private static readonly ParameterSpec s_gamma = ParameterSpec.Number("gamma", "", "Slope γ = log10(R10/R100)") with { Default = 0.7, Min = 0.1, Max = 2 };
@@ -82,6 +82,7 @@ public sealed class Photoresistor : Device
         _slowdown = slowdownExponent;
     }
 
+    /// <inheritdoc />
     public LightInput Light => _light;
 
     /// <summary>Steady-state resistance at illuminance <paramref name="lux"/> (lx), Ω, dark resistance included.</summary>

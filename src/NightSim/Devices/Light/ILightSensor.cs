@@ -1,0 +1,8 @@
+namespace NightSim.Devices.Light;
+
+/// <summary>A device that reads light: what it sees is described by its <see cref="LightInput"/>.</summary>
+public interface ILightSensor
+{
+    /// <summary>The sensor's light input (channel, gain, own constant or piecewise-linear lux).</summary>
+    LightInput Light { get; }
+}
