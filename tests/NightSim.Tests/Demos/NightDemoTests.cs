@@ -24,7 +24,7 @@ public class NightDemoTests
     private static double SwitchingLux(NetlistDefinition net)
     {
         PartDefinition ldr = net.Part("LDR1")!, pot = net.Part("RV1")!, cmp = net.Part("U2")!;
-        double vcc = net.Part("V1")!.Parameters.Number("dc");
+        double vcc = net.Part("V1")!.Parameters.Number("constant");
         double vref = vcc * net.Part("R3")!.Parameters.Number("value") / (net.Part("R2")!.Parameters.Number("value") + net.Part("R3")!.Parameters.Number("value"));
         double vSwitch = vref + cmp.Parameters.Number("hysteresis") / 2;
         double rTop = pot.Parameters.Number("position") * pot.Parameters.Number("value");
@@ -63,7 +63,7 @@ public class NightDemoTests
         NetlistDefinition net = NetlistLoader.Load(DemoRuns.Netlist(demo));
         double rt = net.Part("RTIM")!.Parameters.Number("value"), ct = net.Part("CTIM")!.Parameters.Number("value");
         double drain = net.Part("CTIM")!.Parameters.Number("leakageCurrent");
-        double vcc = net.Part("V1")!.Parameters.Number("dc");
+        double vcc = net.Part("V1")!.Parameters.Number("constant");
         // 555 one-shot with a constant drain I_p: t = RC·ln(A/(A − 2V/3)), A = V − I_p·R (textbook RC charging with a constant drain).
         double a = vcc - drain * rt;
         double closedForm = rt * ct * Math.Log(a / (a - 2.0 * vcc / 3.0));

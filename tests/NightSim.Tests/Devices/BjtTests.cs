@@ -66,11 +66,11 @@ public sealed class BjtTests
 
         var circuit = Circuit.FromDevices("ce-switch",
         [
-            new VoltageSource("VCC", "VCC", "vcc", "0", Waveform.Dc(Vcc)),
-            new VoltageSource("VIN", "VIN", "in", "0", Waveform.Pulse(0, 5, 1e-3, 1e-6, 1e-6, 2e-3, double.PositiveInfinity)),
+            new VoltageSource("VCC", "VCC", "vcc", "gnd", Waveform.Dc(Vcc)),
+            new VoltageSource("VIN", "VIN", "in", "gnd", Waveform.Pulse(0, 5, 1e-3, 1e-6, 1e-6, 2e-3, double.PositiveInfinity)),
             new Resistor("RB", "RB", "in", "b", Rb),
             new Resistor("RC", "RC", "vcc", "c", Rc),
-            new Bjt("Q1", "Q1", "c", "b", "0", betaF: Bf, betaR: Br),
+            new Bjt("Q1", "Q1", "c", "b", "gnd", betaF: Bf, betaR: Br),
         ]);
         var result = TransientSolver.Run(circuit, 5e-3, TransientOptions.Default with { Gmin = 0, MaxStep = 1e-4, SupplyRamp = 0 });
         Assert.True(result.Succeeded, result.Failure?.ToString());

@@ -8,7 +8,7 @@ namespace NightSim.Tests.Devices;
 public sealed class PhotoresistorTests
 {
     private static Photoresistor Make(double rise = 0, double decay = 0, double? lux = null, IReadOnlyList<(double, double)>? pwl = null, double gain = 1.0) =>
-        new("LDR1", "LDR1", "a", "0", 15e3, 0.7, 1e13, rise, decay, new LightInput("sensor", gain, lux, pwl));
+        new("LDR1", "LDR1", "a", "gnd", 15e3, 0.7, 1e13, rise, decay, new LightInput("sensor", gain, lux, pwl));
 
     // CdS law R(E) = R10·(E/10 lx)^(−γ), R10 15 kΩ, γ 0.7 (textbook photoconductor power law, common practice;
     // values computed from that formula, 1e-4 relative):
@@ -33,7 +33,7 @@ public sealed class PhotoresistorTests
     [Fact]
     public void Dark_Resistance_Is_In_Parallel()
     {
-        var ldr = new Photoresistor("LDR1", "LDR1", "a", "0", 15e3, 0.7, 1e6, 0, 0, new LightInput("sensor", 1, 0.0, null));
+        var ldr = new Photoresistor("LDR1", "LDR1", "a", "gnd", 15e3, 0.7, 1e6, 0, 0, new LightInput("sensor", 1, 0.0, null));
         Assert.Equal(1e6, ldr.SteadyResistance(0.0), 1e-6);
         Assert.Equal(1.0 / (1.0 / 75.18e3 + 1e-6), ldr.SteadyResistance(1.0), 10.0);
     }
@@ -106,8 +106,8 @@ public sealed class PhotoresistorTests
             BlockBench.Dc("VCC", "v", 12.0),
             BlockBench.Dc("VTH", "th", 4.0),
             new Photoresistor("LDR1", "LDR1", "v", "s", 15e3, 0.7, 1e13, 0, 0, new LightInput("sensor", 1, null, pwl)),
-            new Resistor("RB", "RB", "s", "0", 10e3),
-            new Comparator("X1", "X1", "th", "s", "dark", "v", "0", new ComparatorSettings(Hysteresis: 1e-6)),
+            new Resistor("RB", "RB", "s", "gnd", 10e3),
+            new Comparator("X1", "X1", "th", "s", "dark", "v", "gnd", new ComparatorSettings(Hysteresis: 1e-6)),
         ], 1500.0);
         double t = Assert.Single(BlockBench.Times(r, "X1", "output", "high"));
         // At the hand-computed E* the device's law gives the 20 kΩ that puts the divider on 4 V.

@@ -36,7 +36,7 @@ public sealed class PhototransistorTests
         [
             BlockBench.Dc("VCC", "v", 12.0),
             new Phototransistor("Q1", "Q1", "v", "e", 1e-9, 500.0, 10e-9, 0.1, 10e-12, new LightInput("sensor", 1.0, lux, null)),
-            new Resistor("RE", "RE", "e", "0", 10e3),
+            new Resistor("RE", "RE", "e", "gnd", 10e3),
         ], 0.01);
         Assert.Equal(expected, r.Trace("e")!.At(0.01), tolerance);
         Assert.True(r.Trace("e")!.At(0.01) < 12.0);

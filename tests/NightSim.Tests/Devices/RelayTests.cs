@@ -11,7 +11,7 @@ public sealed class RelayTests
     private static readonly RelaySettings s_class = new();
 
     private static Relay Make(RelaySettings? settings = null, string? load = null) =>
-        new("K1", "K1", "c", "0",
+        new("K1", "K1", "c", "gnd",
         [
             new RelayContact("no", "com", "no", false),
             new RelayContact("nc", "com", "nc", true),
@@ -73,8 +73,8 @@ public sealed class RelayTests
         [
             BlockBench.Pwl("VC", "c", (0, 0), (12, 12), (24, 0)),
             BlockBench.Dc("VS", "com", 12.0),
-            new Resistor("RNO", "RNO", "no", "0", 1e3),
-            new Resistor("RNC", "RNC", "nc", "0", 1e3),
+            new Resistor("RNO", "RNO", "no", "gnd", 1e3),
+            new Resistor("RNC", "RNC", "nc", "gnd", 1e3),
             Make(load: "lamp"),
         ], 26.0);
         List<DiscreteEvent> coil = r.Events.Where(e => e.Signal == "coil").ToList();
@@ -102,7 +102,7 @@ public sealed class RelayTests
         [
             BlockBench.Pwl("VC", "c", (0, 0), (0.01, 0), (0.01 + 1e-6, 12), (0.1, 12), (0.1 + 1e-3, 1.3), (0.2, 1.3), (0.2 + 1e-3, 1.1)),
             BlockBench.Dc("VS", "com", 12.0),
-            new Resistor("RNO", "RNO", "no", "0", 1e3),
+            new Resistor("RNO", "RNO", "no", "gnd", 1e3),
             Make(),
         ], 0.3);
         List<double> closed = BlockBench.Times(r, "K1", "contact no", "closed");
@@ -126,8 +126,8 @@ public sealed class RelayTests
         [
             BlockBench.Dc("VCC", "v", 12.0),
             new Relay("K1", "K1", "v", "low", [], s_class),
-            new Switch("S1", "S1", "low", "0", 0.01, 1e8, initiallyClosed: true, [(0.1, 0.0)]),
-            new Capacitor("CS", "CS", "low", "0", 100e-12),
+            new Switch("S1", "S1", "low", "gnd", 0.01, 1e8, initiallyClosed: true, [(0.1, 0.0)]),
+            new Capacitor("CS", "CS", "low", "gnd", 100e-12),
             new Diode("D1", "D1", "low", "v", 7e-9, 1.8, seriesResistance: 0.035),
         ], 0.2, TransientOptions.Default with { RecordNodes = ["low", "K1.i"] });
         double pulled = Assert.Single(BlockBench.Times(r, "K1", "coil", "pulled in"));
@@ -147,7 +147,7 @@ public sealed class RelayTests
         Assert.False(k.LoadOn);
         ISwitchedLoad load = k;
         Assert.Equal("lamp", load.LoadName);
-        Relay nc = new("K2", "K2", "c", "0", [], s_class with { LoadName = "lamp", LoadPower = 40, LoadNormallyClosed = true });
+        Relay nc = new("K2", "K2", "c", "gnd", [], s_class with { LoadName = "lamp", LoadPower = 40, LoadNormallyClosed = true });
         Assert.True(nc.LoadOn);
     }
 }

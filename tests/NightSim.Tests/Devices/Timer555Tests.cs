@@ -9,7 +9,7 @@ public sealed class Timer555Tests
 {
     private static readonly Dictionary<string, string> s_pins = new()
     {
-        ["vcc"] = "vcc", ["gnd"] = "0", ["trigger"] = "trig", ["threshold"] = "tc", ["discharge"] = "dis",
+        ["vcc"] = "vcc", ["gnd"] = "gnd", ["trigger"] = "trig", ["threshold"] = "tc", ["discharge"] = "dis",
         ["output"] = "out", ["reset"] = "rst",
     };
 
@@ -41,9 +41,9 @@ public sealed class Timer555Tests
             BlockBench.Dc("VR", "rst", vcc),
             TriggerPulse(vcc, t0, low),
             new Resistor("RT", "RT", "vcc", "tc", r),
-            new Capacitor("CT", "CT", "tc", "0", c),
+            new Capacitor("CT", "CT", "tc", "gnd", c),
             new Resistor("RD", "RD", "dis", "tc", 1e-3),
-            new Resistor("RL", "RL", "out", "0", 10e3),
+            new Resistor("RL", "RL", "out", "gnd", 10e3),
         };
         devices.AddRange(Timer(timer));
         return devices;
@@ -115,7 +115,7 @@ public sealed class Timer555Tests
     public void Constant_1uA_Drain_Stretches_The_Pulse_To_129_93_s()
     {
         List<Device> devices = OneShot(1e6, 100e-6, 12.0, Ideal(), 1.0, 1e-3);
-        devices.Add(new CurrentSource("IL", "IL", "tc", "0", Waveform.Dc(1e-6)));
+        devices.Add(new CurrentSource("IL", "IL", "tc", "gnd", Waveform.Dc(1e-6)));
         SimulationResult r = BlockBench.Run(devices, 200.0);
         var (set, reset) = Pulse(r);
         Assert.Equal(129.93, reset - set, 129.93 * 1e-3);
@@ -129,7 +129,7 @@ public sealed class Timer555Tests
     public void Drain_Of_4uA_Or_More_Never_Ends(double drain)
     {
         List<Device> devices = OneShot(1e6, 100e-6, 12.0, Ideal(), 1.0, 1e-3);
-        devices.Add(new CurrentSource("IL", "IL", "tc", "0", Waveform.Dc(drain)));
+        devices.Add(new CurrentSource("IL", "IL", "tc", "gnd", Waveform.Dc(drain)));
         SimulationResult r = BlockBench.Run(devices, 2000.0);
         Assert.Single(BlockBench.Times(r, "U1.latch", "q", "high"));
         Assert.Empty(BlockBench.Times(r, "U1.latch", "q", "low"));
@@ -160,9 +160,9 @@ public sealed class Timer555Tests
             BlockBench.Dc("VR", "rst", 12.0),
             TriggerPulse(12.0, 2e-3, 1e-3),
             new Resistor("RT", "RT", "vcc", "tc", 1e6),
-            new Capacitor("CT", "CT", "tc", "0", 100e-6),
+            new Capacitor("CT", "CT", "tc", "gnd", 100e-6),
             new Resistor("RD", "RD", "dis", "tc", 1e-3),
-            new Resistor("RL", "RL", "out", "0", 10e3),
+            new Resistor("RL", "RL", "out", "gnd", 10e3),
         };
         devices.AddRange(Timer(new() { ["dischargeResistance"] = 0.01 }, "bipolar"));
         SimulationResult r = BlockBench.Run(devices, 200.0);
@@ -184,8 +184,8 @@ public sealed class Timer555Tests
             BlockBench.Dc("VCC", "vcc", 12.0),
             new Resistor("RA", "RA", "vcc", "dis", 1e3),
             new Resistor("RB", "RB", "dis", "tc", 10e3),
-            new Capacitor("CT", "CT", "tc", "0", 100e-9),
-            new Resistor("RL", "RL", "out", "0", 10e3),
+            new Capacitor("CT", "CT", "tc", "gnd", 100e-9),
+            new Resistor("RL", "RL", "out", "gnd", 10e3),
         };
         var pins = new Dictionary<string, string>(s_pins) { ["trigger"] = "tc", ["reset"] = "vcc" };
         devices.AddRange(Timer(Ideal(), pins: pins));
@@ -237,9 +237,9 @@ public sealed class Timer555Tests
             BlockBench.Pwl("VT", "trig", (0, 12), (1, 12), (1 + 1e-9, 0), (1.001, 0), (1.001 + 1e-9, 12),
                 (25, 12), (25 + 1e-9, 0), (26, 0), (26 + 1e-9, 12)),
             new Resistor("RT", "RT", "vcc", "tc", 1e6),
-            new Capacitor("CT", "CT", "tc", "0", 100e-6),
+            new Capacitor("CT", "CT", "tc", "gnd", 100e-6),
             new Resistor("RD", "RD", "dis", "tc", 1e-3),
-            new Resistor("RL", "RL", "out", "0", 10e3),
+            new Resistor("RL", "RL", "out", "gnd", 10e3),
         };
         devices.AddRange(Timer(Ideal()));
         SimulationResult r = BlockBench.Run(devices, 60.0);
@@ -262,8 +262,8 @@ public sealed class Timer555Tests
         var high = new List<Device>
         {
             BlockBench.Dc("VCC", "vcc", 12.0), BlockBench.Dc("VR", "rst", 12.0), BlockBench.Dc("VT", "trig", 0.0),
-            new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", "0", 1e-6),
-            new Resistor("RD", "RD", "dis", "tc", 1e-3), new Resistor("RL", "RL", "out", "0", load),
+            new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", "gnd", 1e-6),
+            new Resistor("RD", "RD", "dis", "tc", 1e-3), new Resistor("RL", "RL", "out", "gnd", load),
         };
         high.AddRange(Timer([], variant));
         double voh = BlockBench.Run(high, 0.01).Trace("out")!.At(0.01);
@@ -273,7 +273,7 @@ public sealed class Timer555Tests
         var quiet = new List<Device>
         {
             BlockBench.Dc("VCC", "vcc", 15.0), BlockBench.Dc("VR", "rst", 15.0), BlockBench.Dc("VT", "trig", 15.0),
-            new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", "0", 1e-6),
+            new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", "gnd", 1e-6),
             new Resistor("RD", "RD", "dis", "tc", 1e-3),
         };
         quiet.AddRange(Timer([], variant));

@@ -17,13 +17,13 @@ public class TimerFactsExtractorTests
     public void ReadsTheTimingNetworkAndLeakage()
     {
         var timer = new PartDefinition("U1", "timer-555",
-            new Dictionary<string, string> { ["vcc"] = "vcc", ["gnd"] = "0", ["threshold"] = "tc", ["discharge"] = "tc", ["trigger"] = "trig", ["output"] = "out", ["reset"] = "vcc" },
+            new Dictionary<string, string> { ["vcc"] = "vcc", ["gnd"] = "gnd", ["threshold"] = "tc", ["discharge"] = "tc", ["trigger"] = "trig", ["output"] = "out", ["reset"] = "vcc" },
             PartParameters.Empty);
         var net = new NetlistDefinition("t", null,
         [
-            Two("V1", "voltage-source", "vcc", "0", ("dc", 12.0)),
+            Two("V1", "voltage-source", "vcc", "gnd", ("constant", 12.0)),
             Two("RT", "resistor", "vcc", "tc", ("value", 1e6)),
-            Two("CT", "capacitor", "tc", "0", ("value", 100e-6), ("leakageCurrent", 1e-6)),
+            Two("CT", "capacitor", "tc", "gnd", ("value", 100e-6), ("leakageCurrent", 1e-6)),
             timer,
         ]);
         TimerFacts f = Assert.Single(TimerFactsExtractor.Extract(net, n => TimerFactsExtractor.DcSupply(net, n)));
