@@ -76,6 +76,8 @@ internal static class SimulateCommand
                 ?? (durationText is null ? SimulateNight.CompanionScenario(net.ToString()) : null);
             if (scenarioPath is not null)
             {
+                if (pr.GetValue(lux) is not null)
+                    error.WriteLine($"warning: --lux does not apply to a night run: the scenario {scenarioPath} lights the sensors. hint: use --for DURATION for a plain transient under constant light");
                 if (pr.GetValue(nights) is int n && n is < 1 or > 3660)
                 {
                     error.WriteLine("--nights: give 1 to 3660 nights (ten years)");
