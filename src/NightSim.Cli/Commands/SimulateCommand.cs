@@ -12,8 +12,8 @@ using NightSim.Devices.Light;
 
 namespace NightSim.Cli.Commands;
 
-/// <summary>`nightsim simulate NETLIST --for DURATION [--lux VALUE] [--out DIR] [--nodes a,b]`: a plain transient run
-/// from power-up; writes DIR/trace.csv and DIR/statistics.json.</summary>
+/// <summary>`nightsim simulate NETLIST --for DURATION [--lux VALUE] [--start ramp|operating-point] [--out DIR] [--nodes a,b]`:
+/// a plain transient run from power-up (or the operating point); writes DIR/trace.csv and DIR/statistics.json.</summary>
 internal static class SimulateCommand
 {
     public static Command Create()
@@ -47,6 +47,13 @@ internal static class SimulateCommand
             DefaultValueFactory = _ => new DirectoryInfo("nightsim-out"),
             HelpName = "DIR",
         };
+        var start = new Option<string>("--start")
+        {
+            Description = "How a --for run starts: ramp (power-up: capacitors at 0 V, every source scaled from 0 to full over the first 1 ms) or operating-point (from the DC operating point at t = 0, no ramp).",
+            DefaultValueFactory = _ => "ramp",
+            HelpName = "ramp|operating-point",
+        };
+        start.AcceptOnlyFromAmong("ramp", "operating-point");
         var nodes = new Option<string?>("--nodes") { Description = "Comma-separated nodes to record (default: every node).", HelpName = "a,b" };
         var command = new Command("simulate",
             "Run a netlist through the nights of a scenario and report when the load switched on, for how long and why " +
@@ -57,6 +64,7 @@ internal static class SimulateCommand
         command.Options.Add(lux);
         command.Options.Add(outDir);
         command.Options.Add(nodes);
+        command.Options.Add(start);
         command.Options.Add(scenario);
         command.Options.Add(nights);
         command.Options.Add(format);
@@ -92,12 +100,14 @@ internal static class SimulateCommand
                 error.WriteLine($"{net}: no scenario given and no {Path.GetFileNameWithoutExtension(net.Name)}.scenario.json beside it. hint: add --scenario FILE for a night run, or --for DURATION (e.g. --for 10s) for a plain transient");
                 return CliErrors.InvalidInput;
             }
-            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), output, error);
+            StartMode startMode = pr.GetValue(start) == "operating-point" ? StartMode.OperatingPoint : StartMode.PowerUp;
+            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), startMode, output, error);
         }));
         return command;
     }
 
-    private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList, TextWriter output, TextWriter error)
+    private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList,
+        StartMode startMode, TextWriter output, TextWriter error)
     {
         if (!Duration.TryParse(durationText, out double stop, out string? durationError))
         {
@@ -148,7 +158,12 @@ internal static class SimulateCommand
             }
         }
 
-        var options = TransientOptions.Default with { RecordNodes = record, ConstantLux = lux };
+        var options = TransientOptions.Default with { RecordNodes = record, ConstantLux = lux, Start = startMode };
+        foreach ((string id, double corner) in PowerUpRamp.SourceCornersInside(circuit, options))
+        {
+            error.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"warning: {id} changes at {EngineeringValue.Format(corner, "s")}, inside the {EngineeringValue.Format(options.SupplyRamp, "s")} power-up ramp that scales every source from 0: its waveform there is shaped by the ramp (a step at 0 s becomes a {EngineeringValue.Format(options.SupplyRamp, "s")} ramp). hint: --start operating-point, or move the change after {EngineeringValue.Format(options.SupplyRamp, "s")}"));
+        }
         SimulationResult result = TransientSolver.Run(circuit, stop, options);
         SolverStatistics s = result.Statistics;
         if (result.Failure is { } failure)
@@ -168,7 +183,8 @@ internal static class SimulateCommand
         AtomicFile.Write(statsPath, stream => StatisticsJson.Write(result, stream));
 
         var inv = CultureInfo.InvariantCulture;
-        output.WriteLine($"{def.Name}: simulated {EngineeringValue.Format(stop, "s")} from power-up");
+        output.WriteLine($"{def.Name}: simulated {EngineeringValue.Format(stop, "s")} from " +
+            (startMode == StartMode.OperatingPoint ? "the operating point" : $"power-up ({EngineeringValue.Format(options.SupplyRamp, "s")} source ramp)"));
         output.WriteLine(string.Create(inv, $"  steps: {s.AcceptedSteps} accepted, {s.RejectedSteps} rejected; Newton iterations {s.NewtonIterations}; factorisations {s.Factorizations}"));
         output.WriteLine(string.Create(inv, $"  step size: {EngineeringValue.Format(s.MinStep, "s")} … {EngineeringValue.Format(s.MaxStep, "s")}; events {s.Events}; CPU {s.CpuSeconds:F3} s"));
         foreach (Trace t in result.Traces.Take(8))
