@@ -135,7 +135,7 @@ public sealed class PhotoresistorTests
         {
             IReadOnlyList<(double, double)> pwl = falling ? [(0, 100), (2000, 0)] : [(0, 0), (2000, 100)];
             var h = new StampHarness("a");
-            var ldr = new Photoresistor("LDR1", "LDR1", "a", "0", r10, 1.0, 1e13, falling ? 1e-3 : tau, falling ? tau : 1e-3,
+            var ldr = new Photoresistor("LDR1", "LDR1", "a", "gnd", r10, 1.0, 1e13, falling ? 1e-3 : tau, falling ? tau : 1e-3,
                 new LightInput("sensor", 1.0, null, pwl));
             ldr.Setup(h);
             ldr.PowerUp();
@@ -167,7 +167,7 @@ public sealed class PhotoresistorTests
     public void Decay_Slows_Down_In_Dim_Light(double exponent, double tauAtOneLux)
     {
         var h = new StampHarness("a");
-        var ldr = new Photoresistor("LDR1", "LDR1", "a", "0", 15e3, 0.7, 1e13, 0.04, 1.0,
+        var ldr = new Photoresistor("LDR1", "LDR1", "a", "gnd", 15e3, 0.7, 1e13, 0.04, 1.0,
             new LightInput("sensor", 1.0, null, [(0, 100), (1, 100), (1 + 1e-9, 1)]), exponent);
         ldr.Setup(h);
         ldr.PowerUp();
@@ -215,8 +215,8 @@ public sealed class PhotoresistorTests
                 BlockBench.Dc("VCC", "v", 12.0),
                 BlockBench.Dc("VTH", "th", 4.0),
                 new Photoresistor("LDR1", "LDR1", "v", "s", r10, gamma, 1e13, 0.04, tau, new LightInput("sensor", 1, null, [(0, 20), (2000, 0)])),
-                new Resistor("RB", "RB", "s", "0", 10e3),
-                new Comparator("X1", "X1", "th", "s", "dark", "v", "0", new ComparatorSettings(Hysteresis: 1e-6)),
+                new Resistor("RB", "RB", "s", "gnd", 10e3),
+                new Comparator("X1", "X1", "th", "s", "dark", "v", "gnd", new ComparatorSettings(Hysteresis: 1e-6)),
             ], 1900.0, TransientOptions.Default with { MaxStep = maxStep });
             double t = Assert.Single(BlockBench.Times(r, "X1", "output", "high"));
             Assert.Equal(tRef, t, 0.5);

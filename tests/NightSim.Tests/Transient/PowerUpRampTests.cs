@@ -45,10 +45,10 @@ public sealed class PowerUpRampTests
     {
         Circuit circuit = Circuit.FromDevices("rlc",
         [
-            new VoltageSource("V1", "V1", "in", "0", Waveform.Pulse(0, V0, 0, 1e-6, 1e-6, double.PositiveInfinity, double.PositiveInfinity)),
+            new VoltageSource("V1", "V1", "in", "gnd", Waveform.Pulse(0, V0, 0, 1e-6, 1e-6, double.PositiveInfinity, double.PositiveInfinity)),
             new Resistor("R1", "R1", "in", "a", R),
             new Inductor("L1", "L1", "a", "out", L),
-            new Capacitor("C1", "C1", "out", "0", C),
+            new Capacitor("C1", "C1", "out", "gnd", C),
         ]);
         var options = TransientOptions.Verification with { Start = start, MaxStep = 1e-6 };
         if (start == StartMode.PowerUp)
