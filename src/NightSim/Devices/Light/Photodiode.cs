@@ -44,6 +44,9 @@ public sealed class Photodiode : Device, ILightSensor
 
     /// <inheritdoc />
     public LightInput Light => _light;
+
+    /// <inheritdoc />
+    public double FallTimeConstant(double lux) => 0.0;
     private int _anode, _cathode;
     private PairSlots _slots;
 

@@ -85,6 +85,9 @@ public sealed class Photoresistor : Device, ILightSensor
     /// <inheritdoc />
     public LightInput Light => _light;
 
+    /// <inheritdoc />
+    public double FallTimeConstant(double lux) => TimeConstant(_decayTime, lux, _slowdown);
+
     /// <summary>Steady-state resistance at illuminance <paramref name="lux"/> (lx), Ω, dark resistance included.</summary>
     public double SteadyResistance(double lux) => 1.0 / SteadyConductance(lux);
 

@@ -41,6 +41,9 @@ public sealed class Phototransistor : Device, ILightSensor
 
     /// <inheritdoc />
     public LightInput Light => _light;
+
+    /// <inheritdoc />
+    public double FallTimeConstant(double lux) => 0.0;
     private int _c, _e;
     private PairSlots _slots;
 
