@@ -18,7 +18,7 @@ public class TimerFactsExtractorTests
     {
         var timer = new PartDefinition("U1", "timer-555",
             new Dictionary<string, string> { ["vcc"] = "vcc", ["gnd"] = "gnd", ["threshold"] = "tc", ["discharge"] = "tc", ["trigger"] = "trig", ["output"] = "out", ["reset"] = "vcc" },
-            PartParameters.Empty);
+            new PartParameters(null, new Dictionary<string, string> { ["variant"] = "cmos" }));
         var net = new NetlistDefinition("t", null,
         [
             Two("V1", "voltage-source", "vcc", "gnd", ("constant", 12.0)),
