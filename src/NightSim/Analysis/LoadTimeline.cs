@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 using NightSim.Results;
 
 namespace NightSim.Analysis;
@@ -96,13 +95,13 @@ public static class LoadTimeline
         }
         if (best is not null)
         {
-            return (best.Cause, $"{best.Description} at {ReportText.Clock(facts.Clock(best.Start))}", best);
+            return (best.Cause, $"{best.Description} at {Wording.Clock(facts.Clock(best.Start))}", best);
         }
 
         if (facts.LampCouplingLux > 0 && previousEnd is double pe && t - pe <= facts.AttributionLag)
         {
             return (LoadCause.SelfIllumination,
-                $"the lamp's own light ({facts.LampCouplingLux:0.##} lx at the sensor) went out at {ReportText.Clock(facts.Clock(pe))}, and the sensor saw darkness again", null);
+                $"the lamp's own light ({facts.LampCouplingLux:0.##} lx at the sensor) went out at {Wording.Clock(facts.Clock(pe))}, and the sensor saw darkness again", null);
         }
 
         bool inDuskWindow = night is null || night.Sunset is null ||

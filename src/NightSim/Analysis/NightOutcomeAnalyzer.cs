@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 
 namespace NightSim.Analysis;
 
@@ -16,11 +15,11 @@ public sealed class NightOutcomeAnalyzer : IResultAnalyzer
                 double minutes = (dusk.Start - sunset).TotalMinutes;
                 string lux = n.SwitchLevelLux is double l ? $" at {l:0.##} lx at the sensor" : "";
                 string rel = minutes >= 0 ? $"{minutes:0} min after sunset" : $"{-minutes:0} min before sunset";
-                string civil = n.CivilDusk is DateTimeOffset cd ? $", civil dusk {ReportText.Clock(cd)}" : "";
+                string civil = n.CivilDusk is DateTimeOffset cd ? $", civil dusk {Wording.Clock(cd)}" : "";
                 Severity sev = minutes < -15 ? Severity.Warning : Severity.Info;
                 string? fix = minutes < -15 ? "The switching level is too high: it switches on in daylight on dull evenings. Lower the sensor divider's threshold (trimmer) or shade the sensor less." : null;
                 yield return new Finding(sev, "dusk-switch-on",
-                    $"{n.Date:yyyy-MM-dd}: switched on at {ReportText.Clock(dusk.Start)}{lux}, {rel} ({ReportText.Clock(sunset)}{civil}).",
+                    $"{n.Date:yyyy-MM-dd}: switched on at {Wording.Clock(dusk.Start)}{lux}, {rel} ({Wording.Clock(sunset)}{civil}).",
                     fix, dusk.Start);
             }
             if (n.Missed)
@@ -33,7 +32,7 @@ public sealed class NightOutcomeAnalyzer : IResultAnalyzer
             if (n.OnAfterSunrise)
             {
                 yield return new Finding(Severity.Warning, "on-after-sunrise",
-                    $"{n.Date:yyyy-MM-dd}: the lamp was still on at sunrise ({ReportText.Clock(n.Sunrise)}).",
+                    $"{n.Date:yyyy-MM-dd}: the lamp was still on at sunrise ({Wording.Clock(n.Sunrise)}).",
                     "Shorten the on-time, or reset the timer when daylight returns.",
                     n.Sunrise);
             }
@@ -47,7 +46,7 @@ public sealed class NightOutcomeAnalyzer : IResultAnalyzer
         foreach (AttributedInterval iv in intervals.Where(i => i.Cause == LoadCause.PowerUp))
         {
             yield return new Finding(Severity.Info, "power-up-trigger",
-                $"At power-up ({ReportText.Clock(facts.Clock(iv.Start))}) the one-shot fired and the lamp stayed on {(iv.End is double e ? ReportText.Duration(e - iv.Start) : "to the end of the run")}: after every power cut the lamp comes on once.",
+                $"At power-up ({Wording.Clock(facts.Clock(iv.Start))}) the one-shot fired and the lamp stayed on {(iv.End is double e ? Wording.Duration(e - iv.Start) : "to the end of the run")}: after every power cut the lamp comes on once.",
                 "If that is unwanted, hold the trigger high for a moment at power-up (an RC on the reset pin).",
                 facts.Clock(iv.Start));
         }

@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 using NightSim.Results;
 
 namespace NightSim.Analysis;

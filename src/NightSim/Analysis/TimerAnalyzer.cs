@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 using NightSim.Units;
 
 namespace NightSim.Analysis;
@@ -25,7 +24,7 @@ public sealed class TimerAnalyzer : IResultAnalyzer
             else if (t.MarginCurrent < 0.5 * available)
             {
                 yield return new Finding(Severity.Warning, "timer-leakage-margin",
-                    $"Timer {t.PartId}: of the {avail} charging current at the threshold, leakage and input current take {drains}; the on-time is {ReportText.Duration(t.ClosedFormWidth)} instead of {ReportText.Duration(Math.Log(3) * t.Resistance * t.Capacitance)} and moves with temperature and the capacitor's age.",
+                    $"Timer {t.PartId}: of the {avail} charging current at the threshold, leakage and input current take {drains}; the on-time is {Wording.Duration(t.ClosedFormWidth)} instead of {Wording.Duration(Math.Log(3) * t.Resistance * t.Capacitance)} and moves with temperature and the capacitor's age.",
                     "Lower the timing resistor and raise the capacitance, or use a film capacitor and a CMOS timer.",
                     null, t.PartId);
             }
@@ -37,7 +36,7 @@ public sealed class TimerAnalyzer : IResultAnalyzer
             if (iv.End is null)
             {
                 yield return new Finding(Severity.Error, "still-on-at-end",
-                    $"The lamp switched on at {ReportText.Clock(facts.Clock(iv.Start))} and was still on when the run ended {ReportText.Duration(facts.Duration - iv.Start)} later.",
+                    $"The lamp switched on at {Wording.Clock(facts.Clock(iv.Start))} and was still on when the run ended {Wording.Duration(facts.Duration - iv.Start)} later.",
                     "Check the timer's leakage margin and that the trigger is released (a trigger held low keeps the output high).",
                     facts.Clock(iv.Start));
             }
@@ -46,7 +45,7 @@ public sealed class TimerAnalyzer : IResultAnalyzer
                 double expected = facts.Timers[0].ClosedFormWidth, actual = iv.End.Value - iv.Start;
                 double dev = (actual - expected) / expected;
                 yield return new Finding(Math.Abs(dev) > 0.1 ? Severity.Warning : Severity.Info, "on-time",
-                    $"On for {ReportText.Duration(actual)} from {ReportText.Clock(facts.Clock(iv.Start))} ({iv.EndedBy}); the timer's closed form with leakage gives {ReportText.Duration(expected)} ({dev * 100:+0.0;-0.0} %).",
+                    $"On for {Wording.Duration(actual)} from {Wording.Clock(facts.Clock(iv.Start))} ({iv.EndedBy}); the timer's closed form with leakage gives {Wording.Duration(expected)} ({dev * 100:+0.0;-0.0} %).",
                     null, facts.Clock(iv.Start));
             }
         }

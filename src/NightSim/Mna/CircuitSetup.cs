@@ -1,3 +1,4 @@
+using NightSim.Netlist;
 using NightSim.Devices;
 using NightSim.Sky;
 
@@ -19,7 +20,7 @@ internal sealed class CircuitSetup : SetupContext
     public List<UnknownKind> Kinds { get; } = [];
 
     /// <summary>True for the names that mean ground.</summary>
-    public static bool IsGround(string name) => name is "0" or "gnd" or "GND";
+    public static bool IsGround(string name) => Ground.Is(name);
 
     public override int Node(string name)
     {

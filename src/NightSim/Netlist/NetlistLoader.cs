@@ -57,12 +57,6 @@ public static class NetlistLoader
     /// <summary>Reads and validates JSON text without throwing for bad input.</summary>
     public static NetlistLoadResult ReadText(string json, string fileName = "netlist.json") => ReadUtf8(Encoding.UTF8.GetBytes(json), fileName);
 
-    /// <summary>True for a ground name: "0" or "gnd" in any case.</summary>
-    public static bool IsGround(string node) => node == "0" || node.Equals("gnd", StringComparison.OrdinalIgnoreCase);
-
-    /// <summary>The node name as the engine sees it: ground becomes "0", other names are trimmed.</summary>
-    public static string NormalizeNode(string node) => IsGround(node.Trim()) ? "0" : node.Trim();
-
     private static NetlistLoadResult ReadUtf8(byte[] utf8, string file)
     {
         var session = new Session(file);
@@ -286,7 +280,7 @@ public static class NetlistLoader
                 {
                     JsonTree item = nodes.Value.Items[i];
                     if (item.Kind == JsonTreeKind.String && !string.IsNullOrWhiteSpace(item.Text))
-                        _nodeRefs.Add(new NodeRef(NormalizeNode(item.Text!), partId, index, $"{path}.nodes[{i}]", item.Line, item.Column));
+                        _nodeRefs.Add(new NodeRef(Ground.Normalize(item.Text!), partId, index, $"{path}.nodes[{i}]", item.Line, item.Column));
                 }
             }
             if (node.Property("pins") is { Value.Kind: JsonTreeKind.Object } pins)
@@ -294,7 +288,7 @@ public static class NetlistLoader
                 foreach (JsonTreeProperty p in pins.Value.Properties)
                 {
                     if (p.Value.Kind == JsonTreeKind.String && !string.IsNullOrWhiteSpace(p.Value.Text))
-                        _nodeRefs.Add(new NodeRef(NormalizeNode(p.Value.Text!), partId, index, $"{path}.pins.{p.Name}", p.Value.Line, p.Value.Column));
+                        _nodeRefs.Add(new NodeRef(Ground.Normalize(p.Value.Text!), partId, index, $"{path}.pins.{p.Name}", p.Value.Line, p.Value.Column));
                 }
             }
         }
@@ -335,7 +329,7 @@ public static class NetlistLoader
                         ok = false;
                         continue;
                     }
-                    string n = NormalizeNode(items[i].Text!);
+                    string n = Ground.Normalize(items[i].Text!);
                     _nodeRefs.Add(new NodeRef(n, partId, index, itemPath, items[i].Line, items[i].Column));
                     if (i < kind.Pins.Count) pins[kind.Pins[i]] = n;
                 }
@@ -383,7 +377,7 @@ public static class NetlistLoader
                     ok = false;
                     continue;
                 }
-                string n = NormalizeNode(p.Value.Text!);
+                string n = Ground.Normalize(p.Value.Text!);
                 pins[p.Name] = n;
                 _nodeRefs.Add(new NodeRef(n, partId, index, pinPath, p.Value.Line, p.Value.Column));
             }
@@ -636,13 +630,13 @@ public static class NetlistLoader
                 list.Add(r);
             }
 
-            if (!byNode.ContainsKey("0"))
+            if (!byNode.ContainsKey(Ground.Node))
             {
                 Error(partsArray, "$.parts", null, "no part connects to ground",
                     "connect the supply's negative terminal (and every return) to \"0\" or \"gnd\"");
             }
 
-            List<string> publicNodes = byNode.Keys.Where(n => n != "0" && !_privateNodes.Contains(n)).ToList();
+            List<string> publicNodes = byNode.Keys.Where(n => n != Ground.Node && !_privateNodes.Contains(n)).ToList();
             foreach (string node in publicNodes)
             {
                 List<NodeRef> refs = byNode[node];
@@ -688,7 +682,7 @@ public static class NetlistLoader
             }
 
             // DC path to ground: union of nodes through parts that conduct at DC.
-            if (!byNode.ContainsKey("0")) return;
+            if (!byNode.ContainsKey(Ground.Node)) return;
             var dc = new UnionFind();
             foreach (IGrouping<int, NodeRef> part in _nodeRefs.GroupBy(r => r.PartIndex))
             {
@@ -697,7 +691,7 @@ public static class NetlistLoader
                 string first = part.First().Node;
                 foreach (NodeRef r in part) dc.Union(first, r.Node);
             }
-            string groundRoot = dc.Find("0");
+            string groundRoot = dc.Find(Ground.Node);
             foreach (IGrouping<string, string> island in byNode.Keys.Where(n => dc.Find(n) != groundRoot).GroupBy(dc.Find))
             {
                 List<string> names = island.Where(n => !_privateNodes.Contains(n)).ToList();

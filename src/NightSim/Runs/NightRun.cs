@@ -6,6 +6,8 @@ using NightSim.Results;
 using NightSim.Sky;
 using NightSim.Sky.Events;
 using NightSim.Transient;
+using NightSim.Units;
+using NightSim.Mna;
 
 namespace NightSim.Runs;
 
