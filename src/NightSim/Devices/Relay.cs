@@ -1,3 +1,4 @@
+using NightSim.Results;
 using NightSim.Devices.Behavioural;
 using NightSim.Netlist;
 
@@ -76,6 +77,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         OptionalPins = ["com", "no", "nc", "com2", "no2", "nc2"],
         Parameters = [s_coilResistance, s_coilInductance, s_pullIn, s_dropOut, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact],
         Check = CheckDefinition,
+        FacesMains = part => part.Parameters.Has(s_load.Name),
         Create = part => [FromDefinition(part)],
     };
 
@@ -107,6 +109,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         _contactA = new int[_contacts.Length];
         _contactB = new int[_contacts.Length];
         _contactSlots = new PairSlots[_contacts.Length];
+        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullIn, settings.DropOut, settings.CoilResistance);
         PowerUp();
     }
 
@@ -252,7 +255,8 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         {
             bool old = _energised;
             _energised = !_energised;
-            events.Record(this, "coil", old ? "pulled in" : "released", _energised ? "pulled in" : "released");
+            events.Record(this, "coil", old ? "pulled in" : "released", _energised ? "pulled in" : "released",
+                _energised ? DeviceEventKind.CoilPulledIn : DeviceEventKind.CoilReleased);
             if (_energised == _operated)
             {
                 _travelling = false; // dropped back before the armature moved: nothing changes
@@ -292,10 +296,12 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         for (int k = 0; k < _contacts.Length; k++)
         {
             bool closed = IsContactClosed(k);
-            events.Record(this, "contact " + _contacts[k].Label, closed ? "open" : "closed", closed ? "closed" : "open");
+            events.Record(this, "contact " + _contacts[k].Label, closed ? "open" : "closed", closed ? "closed" : "open",
+                _operated ? DeviceEventKind.RelayOperated : DeviceEventKind.RelayReleased);
         }
         if (_settings.LoadName is not null && wasLoadOn != LoadOn)
-            events.Record(this, "load " + _settings.LoadName, wasLoadOn ? "on" : "off", LoadOn ? "on" : "off");
+            events.Record(this, "load " + _settings.LoadName, wasLoadOn ? "on" : "off", LoadOn ? "on" : "off",
+                LoadOn ? DeviceEventKind.LoadOn : DeviceEventKind.LoadOff);
         events.RequestBreakpoint(_armature.End);
     }
 }

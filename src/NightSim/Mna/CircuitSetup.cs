@@ -39,6 +39,8 @@ internal sealed class CircuitSetup : SetupContext
 
     public override int LightChannel(string name) => _light?.ChannelIndex(name) ?? -1;
 
+    public override bool HasLightSignal => _light is not null;
+
     private int Add(string label, UnknownKind kind)
     {
         Labels.Add(label);

@@ -16,7 +16,7 @@ internal static class BlockBench
 
         public List<double> Breakpoints { get; } = [];
 
-        public override void Record(Device device, string signal, string from, string to) => Changes.Add($"{device.Name} {signal} {from}->{to}");
+        public override void Record(Device device, string signal, string from, string to, NightSim.Results.DeviceEventKind kind) => Changes.Add($"{device.Name} {signal} {from}->{to}");
 
         public override void RequestBreakpoint(double time) => Breakpoints.Add(time);
     }
