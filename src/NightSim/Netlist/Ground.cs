@@ -5,9 +5,9 @@ namespace NightSim.Netlist;
 public static class Ground
 {
     /// <summary>Ground as the engine names it after loading (the loader normalises every ground spelling to it).</summary>
-    public const string Node = "0";
+    public const string Node = "gnd";
 
-    /// <summary>True for a ground name: "gnd" in any case, or "0".</summary>
+    /// <summary>True for a ground name: "gnd" in any case (a bare "0" is accepted too, never shown).</summary>
     public static bool Is(string node) => node == Node || node.Equals("gnd", StringComparison.OrdinalIgnoreCase);
 
     /// <summary>The node name as the engine sees it: ground becomes <see cref="Node"/>, other names are trimmed.</summary>

@@ -12,7 +12,7 @@ namespace NightSim.Netlist;
 /// <remarks>
 /// Format: top level { "$schema", "name", "description", "parts": [ … ] }; a part is { "id", "kind", "nodes": [ … ] }
 /// for two-terminal kinds or { "id", "kind", "pins": { pin: node } } for multi-pin kinds, and its parameters are the
-/// other keys ("value": "4k7"). Ground is "0" or "gnd" (any case) and is normalised to "0".
+/// other keys ("value": "4k7"). Ground is written "gnd" (any case) and is normalised to "gnd"; a bare "0" is also taken as ground.
 /// Checks: JSON syntax, unknown kind, missing or extra pins, unknown parameter (nearest valid name), bad value, value
 /// out of its physical range, duplicate id, a node with a single connection, no ground, a loop of voltage sources, and
 /// a node with no DC path to ground.
@@ -325,7 +325,7 @@ public static class NetlistLoader
                     string itemPath = $"{path}.nodes[{i}]";
                     if (items[i].Kind != JsonTreeKind.String || string.IsNullOrWhiteSpace(items[i].Text))
                     {
-                        Error(items[i], itemPath, partId, $"a node name must be a non-empty string, not {items[i].Describe()}", "ground is \"0\" or \"gnd\"");
+                        Error(items[i], itemPath, partId, $"a node name must be a non-empty string, not {items[i].Describe()}", "ground is \"gnd\"");
                         ok = false;
                         continue;
                     }
@@ -373,7 +373,7 @@ public static class NetlistLoader
                 }
                 if (p.Value.Kind != JsonTreeKind.String || string.IsNullOrWhiteSpace(p.Value.Text))
                 {
-                    Error(p.Value, pinPath, partId, $"a node name must be a non-empty string, not {p.Value.Describe()}", "ground is \"0\" or \"gnd\"");
+                    Error(p.Value, pinPath, partId, $"a node name must be a non-empty string, not {p.Value.Describe()}", "ground is \"gnd\"");
                     ok = false;
                     continue;
                 }
@@ -416,9 +416,12 @@ public static class NetlistLoader
         private void UnknownKey(JsonTreeProperty p, string path, string? partId, IEnumerable<string> valid, string what)
         {
             List<string> names = valid.ToList();
-            string? near = NearestName.Find(p.Name, names);
+            string? successor = RetiredNames.Successor(p.Name, names);
+            string? near = successor is null ? NearestName.Find(p.Name, names) : null;
+            string lead = successor is not null ? $"this parameter is now called \"{successor}\". "
+                : near is not null ? $"did you mean \"{near}\"? " : "";
             Error(p.Line, p.Column, path, partId, string.Format(CultureInfo.InvariantCulture, what, "\"" + p.Name + "\""),
-                (near is null ? "" : $"did you mean \"{near}\"? ") + "valid: " + string.Join(", ", names));
+                lead + "valid: " + string.Join(", ", names));
         }
 
         private PartParameters? ReadParameters(IReadOnlyList<ParameterSpec> specs, JsonTree obj, string path, string partId,
@@ -633,7 +636,7 @@ public static class NetlistLoader
             if (!byNode.ContainsKey(Ground.Node))
             {
                 Error(partsArray, "$.parts", null, "no part connects to ground",
-                    "connect the supply's negative terminal (and every return) to \"0\" or \"gnd\"");
+                    "connect the supply's negative terminal (and every return) to \"gnd\"");
             }
 
             List<string> publicNodes = byNode.Keys.Where(n => n != Ground.Node && !_privateNodes.Contains(n)).ToList();
@@ -700,7 +703,7 @@ public static class NetlistLoader
                 string list = string.Join(", ", names.Select(n => "\"" + n + "\""));
                 Error(r.Line, r.Column, r.Path, r.PartId,
                     names.Count == 1 ? $"node {list} has no DC path to ground" : $"nodes {list} have no DC path to ground",
-                    $"they connect only through capacitors or current sources; add a leak resistor, e.g. {{ \"kind\": \"resistor\", \"nodes\": [\"{names[0]}\", \"0\"], \"value\": \"100M\" }}");
+                    $"they connect only through capacitors or current sources; add a leak resistor, e.g. {{ \"kind\": \"resistor\", \"nodes\": [\"{names[0]}\", \"gnd\"], \"value\": \"100M\" }}");
             }
         }
     }
