@@ -8,7 +8,7 @@ public static class Ground
     public const string Node = "gnd";
 
     /// <summary>True for a ground name: "gnd" in any case (a bare "0" is accepted too, never shown).</summary>
-    public static bool Is(string node) => node == Node || node.Equals("gnd", StringComparison.OrdinalIgnoreCase);
+    public static bool Is(string node) => node == "0" || node.Equals(Node, StringComparison.OrdinalIgnoreCase);
 
     /// <summary>The node name as the engine sees it: ground becomes <see cref="Node"/>, other names are trimmed.</summary>
     public static string Normalize(string node) => Is(node.Trim()) ? Node : node.Trim();
