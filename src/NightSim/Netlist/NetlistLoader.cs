@@ -723,9 +723,15 @@ public static class NetlistLoader
                 _parent[x] = x;
                 return x;
             }
-            if (p == x) return x;
-            string root = Find(p);
-            _parent[x] = root;
+            // Iterative with path compression: a long chain of unions must not exhaust the stack.
+            string root = x;
+            while (_parent[root] is var up && up != root) root = up;
+            while (x != root)
+            {
+                string next = _parent[x];
+                _parent[x] = root;
+                x = next;
+            }
             return root;
         }
 
