@@ -42,4 +42,9 @@ public sealed class PartKind
 
     /// <summary>Pin pairs that are joined by an ideal voltage constraint (voltage sources), for the source-loop check.</summary>
     public bool IsVoltageSource { get; init; }
+
+    /// <summary>Pins that must not all sit on one node: shorted together the part cannot work (a relay coil that can
+    /// never carry current, a current source driving into itself). The loader makes that an error; any other part
+    /// with every pin on one node gets a warning.</summary>
+    public IReadOnlyList<string> PinsThatMustDiffer { get; init; } = [];
 }

@@ -50,7 +50,7 @@ internal sealed class JsonTree
     {
         JsonTreeKind.Object => "an object",
         JsonTreeKind.Array => "a list",
-        JsonTreeKind.String => $"the string \"{Text}\"",
+        JsonTreeKind.String => $"the string \"{(Text!.Length <= 40 ? Text : Text[..40] + "…")}\"",
         JsonTreeKind.Number => $"the number {Text}",
         JsonTreeKind.True => "true",
         JsonTreeKind.False => "false",

@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using NightSim.Sky.Events;
+using NightSim.Text;
 
 namespace NightSim.Sky;
 
@@ -18,15 +19,21 @@ public static class ScenarioLoader
     /// <summary>Loads <paramref name="path"/>; the scenario or null with the errors.</summary>
     public static LightScenario? Load(string path, out IReadOnlyList<ScenarioError> errors, LightEventCatalog? catalog = null)
     {
-        string name = Path.GetFileName(path);
-        byte[] bytes;
+        string name = path;
+        byte[]? bytes;
+        string? tooBig;
         try
         {
-            bytes = File.ReadAllBytes(path);
+            bytes = Utf8Check.ReadBounded(path, InputLimits.MaxInputBytes, out tooBig);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            errors = [new ScenarioError(path, "$", $"cannot read the file: {ex.Message}", "check the path")];
+            errors = [new ScenarioError(path, "$", $"cannot read the file: {ex.Message.TrimEnd('.')}", "check the path")];
+            return null;
+        }
+        if (bytes is null)
+        {
+            errors = [new ScenarioError(path, "$", "the file " + tooBig, "give a scenario JSON file; an input file may hold at most 64 MB")];
             return null;
         }
         string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? Directory.GetCurrentDirectory();
@@ -48,6 +55,11 @@ public static class ScenarioLoader
         LightEventCatalog? catalog, string? sourceFile)
     {
         catalog ??= LightEventCatalog.Default;
+        if (Utf8Check.Problem(utf8) is { } bad)
+        {
+            errors = [new ScenarioError(fileName, "$", bad.Message, bad.Hint, bad.Line, bad.Column)];
+            return null;
+        }
         var locator = new JsonLocator(utf8);
         var ctx = new ScenarioParseContext(fileName, locator, baseDirectory);
         JsonDocument doc;
@@ -60,7 +72,13 @@ public static class ScenarioLoader
         catch (JsonException ex)
         {
             int line = (int)(ex.LineNumber ?? -1) + 1, col = (int)(ex.BytePositionInLine ?? -1) + 1;
-            errors = [new ScenarioError(fileName, "$", $"not valid JSON: {FirstSentence(ex.Message)}", "check brackets, commas and quotes near this place", line, col)];
+            string what = FirstSentence(ex.Message);
+            int cut = what.IndexOf(" LineNumber:", StringComparison.Ordinal);
+            if (cut > 0) what = what[..cut].TrimEnd('.', ' ');
+            bool early = what.Contains("end of data", StringComparison.Ordinal) || what.Contains("depth to be zero", StringComparison.Ordinal);
+            errors = [new ScenarioError(fileName, "$", $"not valid JSON: {what}",
+                early ? "the file ends before the JSON does: is it complete (cut short while copying or saving)? else check the closing brackets"
+                      : "check brackets, commas and quotes near this place", line, col)];
             return null;
         }
         using (doc)
@@ -148,9 +166,27 @@ public static class ScenarioLoader
                 if (!File.Exists(full)) ctx.Error("$.lightLog.file", $"light log \"{file}\" not found", $"looked in {ctx.BaseDirectory}; paths are relative to the scenario file");
                 else
                 {
-                    log = RecordedLightLog.Parse(File.ReadAllText(full), file, site.TimeZone, tzText == "utc", out var logErrors);
-                    ctx.AddRange(logErrors);
-                    if (log is not null) warnings.AddRange(log.Warnings);
+                    byte[]? logBytes = null;
+                    string? logProblem;
+                    try
+                    {
+                        logBytes = Utf8Check.ReadBounded(full, InputLimits.MaxLightLogBytes, out logProblem);
+                    }
+                    catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+                    {
+                        logProblem = "cannot be read: " + ex.Message.TrimEnd('.');
+                    }
+                    Utf8Check.Finding? badText = logBytes is null ? null : Utf8Check.Problem(logBytes);
+                    if (logBytes is null)
+                        ctx.Error("$.lightLog.file", $"light log \"{file}\" {logProblem}", "a light log is a regular CSV file of at most 64 MB and 1 000 000 rows");
+                    else if (badText is not null)
+                        ctx.AddRange([new ScenarioError(file, "$", badText.Message, badText.Hint, badText.Line, badText.Column)]);
+                    else
+                    {
+                        log = RecordedLightLog.Parse(Utf8Check.Decode(logBytes), file, site.TimeZone, tzText == "utc", out var logErrors);
+                        ctx.AddRange(logErrors);
+                        if (log is not null) warnings.AddRange(log.Warnings);
+                    }
                 }
             }
         }
