@@ -142,13 +142,13 @@ public static class NetlistLoader
             }
             else
             {
-                name = nameProp.Value.Text!;
+                name = DisplayText.Clean(nameProp.Value.Text!);
             }
 
             string? description = null;
             if (root.Property("description") is { } descProp)
             {
-                if (descProp.Value.Kind == JsonTreeKind.String) description = descProp.Value.Text;
+                if (descProp.Value.Kind == JsonTreeKind.String) description = DisplayText.Clean(descProp.Value.Text!);
                 else Error(descProp.Value, "$.description", null, $"\"description\" must be a string, not {descProp.Value.Describe()}", null);
             }
             if (root.Property("$schema") is { } schemaProp && schemaProp.Value.Kind != JsonTreeKind.String)

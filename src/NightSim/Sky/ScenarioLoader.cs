@@ -13,6 +13,9 @@ namespace NightSim.Sky;
 /// </summary>
 public static class ScenarioLoader
 {
+    /// <summary>Shortest event length accepted in minutes (one second): shorter passes only multiply breakpoints.</summary>
+    public const double MinEventMinutes = 1.0 / 60.0;
+
     private static readonly string[] s_topLevel =
         ["$schema", "name", "description", "site", "start", "nights", "seed", "sensor", "channels", "weather", "events", "lightLog"];
 
@@ -99,8 +102,8 @@ public static class ScenarioLoader
     {
         if (!ctx.ExpectObject(root, "$")) return null;
         ctx.CheckProperties(root, "$", s_topLevel);
-        string name = ctx.String(root, "$", "name") ?? Path.GetFileNameWithoutExtension(ctx.FileName);
-        string description = ctx.String(root, "$", "description") ?? "";
+        string name = DisplayText.Clean(ctx.String(root, "$", "name") ?? Path.GetFileNameWithoutExtension(ctx.FileName));
+        string description = DisplayText.Clean(ctx.String(root, "$", "description") ?? "");
 
         Site? site = ReadSite(root, ctx);
 
@@ -108,7 +111,7 @@ public static class ScenarioLoader
         string? startText = ctx.String(root, "$", "start", required: true);
         if (startText is not null && !DateOnly.TryParseExact(startText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out start))
             ctx.Error("$.start", $"\"{startText}\" is not a date", "write the date of the first night as \"YYYY-MM-DD\"");
-        int nights = (int)(ctx.Integer(root, "$", "nights", min: 1, max: 3660) ?? 1);
+        int nights = (int)(ctx.Integer(root, "$", "nights", min: 1, max: InputLimits.MaxNights) ?? 1);
         long? seedValue = ctx.Integer(root, "$", "seed", min: 0);
         ulong seed = seedValue is long sv ? (ulong)sv : LightScenario.DefaultSeed;
 
@@ -209,7 +212,7 @@ public static class ScenarioLoader
         }
         if (!ctx.ExpectObject(s, "$.site")) return null;
         ctx.CheckProperties(s, "$.site", "name", "latitude", "longitude", "timeZone", "elevation");
-        string siteName = ctx.String(s, "$.site", "name") ?? "site";
+        string siteName = DisplayText.Clean(ctx.String(s, "$.site", "name") ?? "site");
         double? lat = ctx.Number(s, "$.site", "latitude", "deg", required: true, min: -90, max: 90);
         double? lon = ctx.Number(s, "$.site", "longitude", "deg", required: true, min: -180, max: 180);
         double elevation = ctx.Number(s, "$.site", "elevation", null) ?? 0.0;
@@ -256,7 +259,7 @@ public static class ScenarioLoader
         if (w.TryGetProperty("sky", out JsonElement sk))
         {
             if (sk.ValueKind == JsonValueKind.String && !double.IsNaN(Weather.NamedSkyFactor(sk.GetString()!))) sky = Weather.NamedSkyFactor(sk.GetString()!);
-            else if (sk.ValueKind == JsonValueKind.Number && sk.GetDouble() >= 1.0) sky = sk.GetDouble();
+            else if (sk.ValueKind == JsonValueKind.Number && sk.TryGetDouble(out double factor) && double.IsFinite(factor) && factor >= 1.0) sky = factor;
             else ctx.Error("$.weather.sky", $"{ScenarioParseContext.Describe(sk)} is not a sky", "write \"clear\", \"thin\", \"cloudy\", \"overcast\" or a factor ≥ 1 (10 = dark stratus)");
         }
         CloudDefinition? clouds = null;
@@ -265,7 +268,13 @@ public static class ScenarioLoader
             ctx.CheckProperties(c, "$.weather.clouds", "perHour", "depth", "minutes");
             double? perHour = ctx.Number(c, "$.weather.clouds", "perHour", null, required: true, min: 0);
             double depth = ctx.Number(c, "$.weather.clouds", "depth", null, min: 0, max: 1) ?? 0.5;
-            double minutes = ctx.Number(c, "$.weather.clouds", "minutes", null, min: 0, minExclusive: true) ?? 10.0;
+            double minutes = ctx.Number(c, "$.weather.clouds", "minutes", null, min: MinEventMinutes, max: 24 * 60) ?? 10.0;
+            if (perHour is not null && perHour.Value * 24 > InputLimits.MaxEventsPerNight)
+            {
+                ctx.Error("$.weather.clouds.perHour", $"{perHour.Value.ToString("G4", CultureInfo.InvariantCulture)} clouds per hour would be more than the limit of {InputLimits.MaxEventsPerNight} events per night",
+                    "passing clouds come a few to a few dozen per hour, e.g. \"perHour\": 6");
+                perHour = null;
+            }
             if (perHour is not null) clouds = new CloudDefinition(perHour.Value, depth, minutes);
         }
         bool modeledMoon = false;

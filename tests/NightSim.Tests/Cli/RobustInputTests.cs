@@ -189,4 +189,44 @@ public sealed class RobustInputTests : IDisposable
         Assert.Contains("nowhere", err, StringComparison.Ordinal);
         Assert.False(Directory.Exists(outDir));
     }
+
+    [Fact]
+    public void An_Escape_Character_In_Names_Does_Not_Break_Plots_Or_The_Page()
+    {
+        string netlist = File.ReadAllText(Path.Combine(RepoPaths.Netlists, "garden-path.json"));
+        int at = netlist.IndexOf("\"name\": \"", StringComparison.Ordinal) + "\"name\": \"".Length;
+        netlist = netlist[..at] + "drive\\u001bway " + netlist[at..];
+        string scenario = File.ReadAllText(Path.Combine(RepoPaths.Netlists, "garden-path.scenario.json"));
+        at = scenario.IndexOf("\"name\": \"Invented", StringComparison.Ordinal) + "\"name\": \"".Length;
+        scenario = scenario[..at] + "drive\\u001bway " + scenario[at..];
+        string net = Write("esc.json", Encoding.UTF8.GetBytes(netlist));
+        string scen = Write("esc.scenario.json", Encoding.UTF8.GetBytes(scenario));
+        string outDir = Path.Combine(_dir, "esc-out");
+        (int exit, string output, string err) = Run("simulate", net, "--scenario", scen, "--out", outDir, "--no-progress");
+        Assert.True(exit == 0, err);
+        Assert.DoesNotContain('\u001b', output);
+        string html = File.ReadAllText(Path.Combine(outDir, "report.html"));
+        Assert.Contains("drive\uFFFDway", html, StringComparison.Ordinal);
+        Assert.DoesNotContain('\u001b', html);
+        foreach (string svg in Directory.GetFiles(outDir, "*.svg"))
+        {
+            string text = File.ReadAllText(svg);
+            Assert.DoesNotContain('\u001b', text);
+            System.Xml.Linq.XDocument.Parse(text); // well-formed XML (W3C XML 1.0 §2.2 forbids U+001B in a document)
+        }
+    }
+
+    [Fact]
+    public void Fit_Errors_Give_Line_And_Column_In_The_Scenario()
+    {
+        string scenario = File.ReadAllText(Path.Combine(RepoPaths.Netlists, "trigger-filter-absent.scenario.json"))
+            .Replace("\"node\": \"trig\"", "\"node\": \"nowhere\"", StringComparison.Ordinal);
+        string scenarioPath = Write("fit.scenario.json", Encoding.UTF8.GetBytes(scenario));
+        string[] lines = scenario.ReplaceLineEndings("\n").Split('\n');
+        int line = Array.FindIndex(lines, l => l.Contains("\"nowhere\"", StringComparison.Ordinal)) + 1;
+        int column = lines[line - 1].IndexOf("\"nowhere\"", StringComparison.Ordinal) + 1;
+        (int exit, _, string err) = Run("check", Path.Combine(RepoPaths.Netlists, "trigger-filter-absent.json"), scenarioPath);
+        Assert.Equal(2, exit);
+        Assert.Contains($"{scenarioPath}:{line}:{column}: error at $.events[0].node", err, StringComparison.Ordinal);
+    }
 }
