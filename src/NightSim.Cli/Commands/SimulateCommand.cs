@@ -47,7 +47,7 @@ internal static class SimulateCommand
         var command = new Command("simulate",
             "Run a netlist through the nights of a scenario and report when the load switched on, for how long and why " +
             "(report.json, report.html, trace.csv, plots). Without a scenario, --for [--lux] runs a plain transient " +
-            "(trace.csv, statistics.json). Exit 2 on invalid input, 3 when the simulation fails, 4 with --fail-on.");
+            "(trace.csv, statistics.json). Exit 1 on a command-line mistake, 2 on invalid input, 3 when the simulation fails, 4 with --fail-on, 5 when an output cannot be written.");
         command.Arguments.Add(netlist);
         command.Options.Add(duration);
         command.Options.Add(lux);
