@@ -1,5 +1,5 @@
 using NightSim.Devices;
-using NightSim.Netlist;
+using NightSim.Mna;
 
 namespace NightSim.Transient;
 

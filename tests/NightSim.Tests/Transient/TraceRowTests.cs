@@ -1,4 +1,5 @@
 using NightSim.Devices;
+using NightSim.Mna;
 using NightSim.Netlist;
 using NightSim.Results;
 using NightSim.Transient;

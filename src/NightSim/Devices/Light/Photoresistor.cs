@@ -80,6 +80,7 @@ public sealed class Photoresistor : Device, ILightSensor
         _decayTime = decayTime;
         _light = light;
         _slowdown = slowdownExponent;
+        Role = light.Role(partId, Nodes, _decayTime);
     }
 
     /// <inheritdoc />
@@ -135,7 +136,7 @@ public sealed class Photoresistor : Device, ILightSensor
         _a = setup.Node(Nodes[0]);
         _b = setup.Node(Nodes[1]);
         _slots = setup.Pair(_a, _b);
-        _light.Setup(setup);
+        _light.Setup(setup, this);
     }
 
     public override void PowerUp() => _hasHistory = false;
