@@ -91,6 +91,7 @@ public sealed partial class TransientSolver
     private double _opGmin;
     private SimulationFailure? _failure;
     private long _cpuStart;
+    private long _steadyAllocStart;
     private bool _begun;
     private double _lastStepH; // h of the step just computed (trial)
     private bool _lastStepWasTrBdf2;
@@ -410,6 +411,11 @@ public sealed partial class TransientSolver
         _stats.Factorizations = _solver.Factorizations;
         _stats.PivotAnalyses = _solver.Analyses;
         _stats.CpuSeconds = (Environment.CpuUsage.TotalTime.Ticks - _cpuStart) / (double)TimeSpan.TicksPerSecond;
+        if (_stats.AcceptedSteps > SolverStatistics.SteadyFromStep)
+        {
+            _stats.SteadyAllocatedBytes = GC.GetAllocatedBytesForCurrentThread() - _steadyAllocStart;
+            _stats.SteadySteps = _stats.AcceptedSteps - SolverStatistics.SteadyFromStep;
+        }
         return new SimulationResult(_recorder?.Build() ?? [], [.. _eventLog.Events], _stats,
             _failure?.Time ?? _time.Value, _light?.Origin, _failure);
     }
@@ -440,6 +446,7 @@ public sealed partial class TransientSolver
         _hLast = h;
         if (double.IsNaN(landAt)) _time.Advance(h); else _time.Set(landAt);
         _stats.NoteStep(h);
+        if (_stats.AcceptedSteps == SolverStatistics.SteadyFromStep) _steadyAllocStart = GC.GetAllocatedBytesForCurrentThread();
         _rejectedLast = false;
         _failuresHere = 0;
 
