@@ -65,7 +65,9 @@ public sealed class NightOutcomeAnalyzer : IResultAnalyzer
                     facts.Clock(at), facts.Sensor?.PartId);
             }
         }
-        bool triggered = facts.DeviceEvents.Any(e => e.Kind == DeviceEventKind.TriggerFired && e.Time >= from && e.Time < to);
+        // The trigger pin starts below its level while its network charges at power-up: that firing is not the night's.
+        double since = Math.Max(from, facts.PowerUpWindow);
+        bool triggered = facts.DeviceEvents.Any(e => e.Kind == DeviceEventKind.TriggerFired && e.Time >= since && e.Time < to);
         bool outputHigh = facts.DeviceEvents.Any(e => e.Kind == DeviceEventKind.TimerOutputHigh && e.Time >= from && e.Time < to);
         if (outputHigh && facts.Relays.Count > 0) return null; // the relay stage failed: StageAnalyzer says how
         string why = triggered

@@ -90,6 +90,7 @@ public sealed partial class TransientSolver
     private bool _rejectedLast;
     private int _failuresHere;
     private double _opGmin;
+    private double _opTime; // time at which an operating point is solved (0 but for a resting point)
     private SimulationFailure? _failure;
     private long _cpuStart;
     private bool _begun;
