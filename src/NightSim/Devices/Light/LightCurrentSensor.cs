@@ -14,7 +14,7 @@ namespace NightSim.Devices.Light;
 /// Defaults (from memory, the usual order for such sensors): 0.5 µA per lux (100 lx into 10 kΩ gives 0.5 V), 10 nA in
 /// darkness, 0.3 V headroom. It follows light in microseconds: no lag.
 /// </remarks>
-public sealed class LightCurrentSensor : Device
+public sealed class LightCurrentSensor : Device, ILightSensor
 {
     private static readonly ParameterSpec s_currentPerLux = ParameterSpec.Number("currentPerLux", "A/lx", "Output current per lux") with { Default = 0.5e-6, Min = 0, Max = 1e-2 };
     private static readonly ParameterSpec s_darkCurrent = ParameterSpec.Number("darkCurrent", "A", "Output current in darkness") with { Default = 10e-9, Min = 0, Max = 1e-3 };
@@ -59,6 +59,11 @@ public sealed class LightCurrentSensor : Device
         _light = light;
         Role = light.Role(partId, Nodes, 0.0);
     }
+
+    public LightInput Light => _light;
+
+    /// <summary>It follows falling light at once (microseconds): 0 s.</summary>
+    public double FallTimeConstant(double lux) => 0.0;
 
     /// <summary>Output current with full headroom at illuminance <paramref name="lux"/> (lx), A.</summary>
     public double FullCurrent(double lux) => _currentPerLux * lux + _darkCurrent;
