@@ -74,7 +74,10 @@ public class MistakeRunTests
         Assert.NotNull(first.End);
         Assert.InRange(first.End!.Value.TimeOfDay.TotalSeconds, 19.5 * 3600, 19.5 * 3600 + 2);
         Assert.DoesNotContain("ran out", first.EndedBy, StringComparison.Ordinal);
-        Assert.Contains("trigger", first.EndedBy, StringComparison.Ordinal);
+        Assert.StartsWith("timer U1's trigger input was released by headlight pass", first.EndedBy, StringComparison.Ordinal);
+        Assert.EndsWith("at 19:30:00", first.EndedBy, StringComparison.Ordinal);
+        // The on-time check stays, but only as information: the trigger, not the timer, ended that period.
+        Assert.Contains(r.Analysis.Findings, f => f.Code == "on-time" && f.Severity == Severity.Info && f.Message.Contains("released by headlight pass", StringComparison.Ordinal));
         string heldFor = Wording.Duration(first.End.Value.Subtract(first.Start).TotalSeconds);
         Assert.Contains($"for {heldFor} from {Wording.Clock(first.Start)}", held[0].Message, StringComparison.Ordinal);
         NoInternalNames(r);
@@ -111,6 +114,7 @@ public class MistakeRunTests
         double stated = double.Parse(System.Text.RegularExpressions.Regex.Match(f.Message, @"below ([0-9.]+) lx").Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture);
         Assert.Equal(darkest, stated, 0.01 * darkest + 0.005);
         Assert.Contains($"switching level of {level:0.#}", f.Message, StringComparison.Ordinal);
+        Assert.Contains($"never darker than {stated:0.##} lx", f.Fix, StringComparison.Ordinal);
         NoInternalNames(r);
     }
 
