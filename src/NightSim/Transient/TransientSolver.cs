@@ -91,6 +91,7 @@ public sealed partial class TransientSolver
     private bool _ramping;      // steps since the last restart have all grown as fast as allowed: RestartGrowth applies
     private int _failuresHere;
     private double _opGmin;
+    private double _opTime; // time at which an operating point is solved (0 but for a resting point)
     private SimulationFailure? _failure;
     private long _cpuStart;
     private long _steadyAllocStart;
