@@ -41,12 +41,19 @@ public sealed record EventFact(LoadCause Cause, string Kind, double Start, doubl
 /// <param name="SupplyVoltage">Supply, V.</param>
 /// <param name="DrainCurrent">Constant drain at the timing node (capacitor leakage + threshold input current), A.</param>
 /// <param name="LeakageResistance">Leakage as a resistance across the capacitor, Ω (∞ if none).</param>
-public sealed record TimerFacts(string PartId, double Resistance, double Capacitance, double SupplyVoltage, double DrainCurrent, double LeakageResistance)
+/// <param name="LeakageLimit">Catalogue leakage limit of the timing electrolytic (IEC 60384-4), A; NaN when not an
+/// electrolytic with a rated voltage.</param>
+/// <param name="CapacitorId">Part id of the timing capacitor (the first, when several are in parallel), or null.</param>
+public sealed record TimerFacts(string PartId, double Resistance, double Capacitance, double SupplyVoltage, double DrainCurrent, double LeakageResistance,
+    double LeakageLimit = double.NaN, string? CapacitorId = null)
 {
     /// <summary>Charging current available at the 2/3 threshold minus the drains, A (negative: never ends).
     /// (V_CC/3)/R − I_drain − (2V_CC/3)/R_L; textbook RC charging with a constant drain.</summary>
     public double MarginCurrent =>
         SupplyVoltage / 3.0 / Resistance - DrainCurrent - (double.IsInfinity(LeakageResistance) ? 0.0 : 2.0 * SupplyVoltage / 3.0 / LeakageResistance);
+
+    /// <summary>Charging current through the timing resistor with the capacitor at the 2/3 threshold, A: (V_CC/3)/R.</summary>
+    public double ChargingCurrentAtThreshold => SupplyVoltage / 3.0 / Resistance;
 
     /// <summary>Closed-form one-shot width, s: from 0 V to 2/3 V_CC with R, C, a constant drain and a leakage
     /// resistance (Thevenin: V∞ = (V_CC − I·R)·R_L/(R + R_L), τ = C·(R∥R_L)); +∞ when the threshold is never reached.</summary>

@@ -20,7 +20,8 @@ public static class TimerFactsExtractor
         foreach (PartDefinition timer in netlist.Parts.Where(p => p.Kind == "timer-555"))
         {
             if (!timer.Pins.TryGetValue("threshold", out string? th) || !timer.Pins.TryGetValue("vcc", out string? vcc)) continue;
-            double conductance = 0, capacitance = 0, leakCurrent = 0, leakConductance = 0;
+            double conductance = 0, capacitance = 0, leakCurrent = 0, leakConductance = 0, limit = double.NaN;
+            string? capacitorId = null;
             foreach (PartDefinition p in netlist.Parts)
             {
                 if (!TwoNodes(p, out string a, out string b)) continue;
@@ -30,7 +31,10 @@ public static class TimerFactsExtractor
                 if (p.Kind == "capacitor" && toGround)
                 {
                     capacitance += p.Parameters.Number("value");
-                    leakCurrent += p.Parameters.Number("leakageCurrent", 0);
+                    leakCurrent += Capacitor.EffectiveLeakageCurrent(p);
+                    double lim = Capacitor.LeakageLimit(p);
+                    if (!double.IsNaN(lim)) limit = double.IsNaN(limit) ? lim : limit + lim;
+                    capacitorId ??= p.Id;
                     double rl = p.Parameters.Number("leakageResistance", double.PositiveInfinity);
                     if (!double.IsInfinity(rl)) leakConductance += 1.0 / rl;
                 }
@@ -40,7 +44,7 @@ public static class TimerFactsExtractor
             if (conductance <= 0 || capacitance <= 0 || v is null) continue;
             double inputCurrent = Devices.Composite.Timer555.EffectiveNumber(timer, "thresholdCurrent");
             result.Add(new TimerFacts(timer.Id, 1.0 / conductance, capacitance, v.Value, leakCurrent + inputCurrent,
-                leakConductance > 0 ? 1.0 / leakConductance : double.PositiveInfinity));
+                leakConductance > 0 ? 1.0 / leakConductance : double.PositiveInfinity, limit, capacitorId));
         }
         return result;
     }

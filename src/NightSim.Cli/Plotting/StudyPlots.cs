@@ -1,0 +1,132 @@
+using System.Globalization;
+using OxyPlot;
+using OxyPlot.Annotations;
+using OxyPlot.Axes;
+using OxyPlot.Series;
+
+namespace NightSim.Cli.Plotting;
+
+/// <summary>Plots of the studies: histograms (spread), a line plot or heat map (sweep), the year plot.</summary>
+public static class StudyPlots
+{
+    private static readonly CultureInfo s_inv = CultureInfo.InvariantCulture;
+    private static readonly OxyColor s_grid = OxyColor.FromRgb(0xE4, 0xE4, 0xE4);
+    private static readonly OxyColor s_bar = OxyColor.FromRgb(0x3A, 0x6E, 0xC0);
+    private static readonly OxyColor s_target = OxyColor.FromRgb(0xC0, 0x39, 0x2B);
+
+    /// <summary>A new plot with the house style.</summary>
+    public static PlotModel Model(string title, string subtitle) => new()
+    {
+        Title = title,
+        Subtitle = subtitle,
+        DefaultFont = NightPlotBuilder.FontFamily,
+        Background = OxyColors.White,
+        PlotAreaBorderColor = OxyColor.FromRgb(0x88, 0x88, 0x88),
+    };
+
+    /// <summary>A histogram of <paramref name="values"/> with vertical target lines (label, x).</summary>
+    public static PlotModel Histogram(string title, string subtitle, string xTitle, IReadOnlyList<double> values,
+        IReadOnlyList<(string Label, double X)> targets, int bins = 30)
+    {
+        PlotModel model = Model(title, subtitle);
+        double lo = values.Count > 0 ? values.Min() : 0, hi = values.Count > 0 ? values.Max() : 1;
+        foreach ((_, double x) in targets) { lo = Math.Min(lo, x); hi = Math.Max(hi, x); }
+        if (!(hi > lo)) { lo -= 0.5; hi += 0.5; }
+        double pad = (hi - lo) * 0.04;
+        lo -= pad; hi += pad;
+        double width = (hi - lo) / bins;
+        var counts = new int[bins];
+        foreach (double v in values) counts[Math.Clamp((int)((v - lo) / width), 0, bins - 1)]++;
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Bottom, Title = xTitle, Minimum = lo, Maximum = hi, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid });
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Left, Title = "runs", Minimum = 0, MaximumPadding = 0.1, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid });
+        var bars = new RectangleBarSeries { FillColor = s_bar, StrokeColor = OxyColors.White, StrokeThickness = 0.5 };
+        for (int i = 0; i < bins; i++)
+        {
+            if (counts[i] > 0) bars.Items.Add(new RectangleBarItem(lo + i * width, 0, lo + (i + 1) * width, counts[i]));
+        }
+        model.Series.Add(bars);
+        foreach ((string label, double x) in targets) model.Annotations.Add(Vertical(x, label));
+        return model;
+    }
+
+    /// <summary>One outcome against one swept value, with target lines (horizontal) and failing points marked.</summary>
+    public static PlotModel Line(string title, string subtitle, string xTitle, bool logX, string yTitle,
+        IReadOnlyList<(double X, double? Y, bool Pass)> points, IReadOnlyList<(string Label, double Y)> targets)
+    {
+        PlotModel model = Model(title, subtitle);
+        model.Axes.Add(logX
+            ? new LogarithmicAxis { Position = AxisPosition.Bottom, Title = xTitle, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid, LabelFormatter = Eng }
+            : new LinearAxis { Position = AxisPosition.Bottom, Title = xTitle, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid, LabelFormatter = Eng });
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Left, Title = yTitle, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid, MinimumPadding = 0.1, MaximumPadding = 0.1 });
+        var line = new LineSeries { Color = s_bar, StrokeThickness = 1.5, MarkerType = MarkerType.Circle, MarkerSize = 4, MarkerFill = s_bar, Title = "pass" };
+        var fail = new ScatterSeries { MarkerType = MarkerType.Cross, MarkerSize = 7, MarkerStroke = s_target, MarkerStrokeThickness = 2, Title = "fails a target" };
+        foreach ((double x, double? y, bool pass) in points)
+        {
+            line.Points.Add(y is double v ? new DataPoint(x, v) : DataPoint.Undefined);
+            if (!pass) fail.Points.Add(new ScatterPoint(x, y ?? 0));
+        }
+        model.Series.Add(line);
+        model.Series.Add(fail);
+        foreach ((string label, double y) in targets)
+        {
+            model.Annotations.Add(new LineAnnotation { Type = LineAnnotationType.Horizontal, Y = y, Color = s_target, LineStyle = LineStyle.Dash, Text = label, StrokeThickness = 1.5 });
+        }
+        model.Legends.Add(new OxyPlot.Legends.Legend { LegendPosition = OxyPlot.Legends.LegendPosition.TopRight, LegendFont = NightPlotBuilder.FontFamily });
+        return model;
+    }
+
+    /// <summary>A heat map of pass (green) / fail (red) cells over two swept values, shaded by an outcome, with the
+    /// boundary between passing and failing cells drawn.</summary>
+    public static PlotModel HeatMap(string title, string subtitle, string xTitle, IReadOnlyList<double> xs, string yTitle,
+        IReadOnlyList<double> ys, Func<int, int, (bool Pass, string Text)> cell)
+    {
+        PlotModel model = Model(title, subtitle);
+        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Bottom, Title = xTitle, ItemsSource = xs.Select(x => Eng(x)).ToList(), GapWidth = 0 });
+        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Left, Title = yTitle, ItemsSource = ys.Select(y => Eng(y)).ToList(), GapWidth = 0 });
+        var pass = OxyColor.FromRgb(0x7F, 0xC9, 0x7F);
+        var failc = OxyColor.FromRgb(0xF4, 0x8F, 0x8F);
+        for (int i = 0; i < xs.Count; i++)
+        {
+            for (int j = 0; j < ys.Count; j++)
+            {
+                (bool ok, string text) = cell(i, j);
+                model.Annotations.Add(new RectangleAnnotation
+                {
+                    MinimumX = i - 0.5, MaximumX = i + 0.5, MinimumY = j - 0.5, MaximumY = j + 0.5,
+                    Fill = ok ? pass : failc, Stroke = OxyColors.White, StrokeThickness = 1, Text = text, FontSize = 11,
+                });
+            }
+        }
+        // The target boundary: edges between a passing and a failing cell.
+        for (int i = 0; i < xs.Count; i++)
+        {
+            for (int j = 0; j < ys.Count; j++)
+            {
+                bool ok = cell(i, j).Pass;
+                if (i + 1 < xs.Count && cell(i + 1, j).Pass != ok) model.Annotations.Add(Edge(i + 0.5, j - 0.5, i + 0.5, j + 0.5));
+                if (j + 1 < ys.Count && cell(i, j + 1).Pass != ok) model.Annotations.Add(Edge(i - 0.5, j + 0.5, i + 0.5, j + 0.5));
+            }
+        }
+        return model;
+    }
+
+    /// <summary>Engineering notation for axis labels ("4.7k", "100n").</summary>
+    public static string Eng(double v) => Units.EngineeringValue.Format(v, "", 3);
+
+    private static PolylineAnnotation Edge(double x1, double y1, double x2, double y2)
+    {
+        var a = new PolylineAnnotation { Color = OxyColors.Black, StrokeThickness = 3, LineStyle = LineStyle.Solid };
+        a.Points.Add(new DataPoint(x1, y1));
+        a.Points.Add(new DataPoint(x2, y2));
+        return a;
+    }
+
+    private static LineAnnotation Vertical(double x, string label) => new()
+    {
+        Type = LineAnnotationType.Vertical, X = x, Color = s_target, LineStyle = LineStyle.Dash, StrokeThickness = 1.5,
+        Text = label, TextOrientation = AnnotationTextOrientation.Vertical,
+    };
+
+    /// <summary>"3.5 h" style number for labels.</summary>
+    public static string N(double v, string format = "0.##") => v.ToString(format, s_inv);
+}
