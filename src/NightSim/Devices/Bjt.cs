@@ -4,7 +4,8 @@ namespace NightSim.Devices;
 
 /// <summary>
 /// Bipolar transistor, npn or pnp, Ebers–Moll transport form with Early effect and junction charges
-/// (Ebers &amp; Moll 1954; check-values.md §10):
+/// (Ebers &amp; Moll, "Large-signal behavior of junction transistors", Proc. IRE 42, 1954; Sedra &amp; Smith,
+/// Microelectronic Circuits):
 /// I_F = I_S(e^(V_BE/(N·V_T)) − 1), I_R = I_S(e^(V_BC/(N·V_T)) − 1), I_CT = (I_F − I_R)(1 − V_BC/V_AF),
 /// I_C = I_CT − I_R/β_R, I_B = I_F/β_F + I_R/β_R. A pnp is the npn with every voltage and current reversed.
 /// Charges: q_BE = depletion(V_BE) + τ_F·I_F, q_BC = depletion(V_BC) + τ_R·I_R. Pins: c, b, e.
@@ -77,22 +78,22 @@ public sealed class Bjt : Device
         UsesNodeList = false,
         Parameters =
         [
-            ParameterSpec.Number("is", "A", "Transport saturation current I_S.") with { Default = 1e-14, Min = 1e-20, Max = 1e-6 },
-            ParameterSpec.Number("bf", "", "Forward current gain β_F.") with { Default = 200, Min = 1, Max = 5000 },
-            ParameterSpec.Number("br", "", "Reverse current gain β_R.") with { Default = 1, Min = 0.01, Max = 100 },
-            ParameterSpec.Number("vaf", "V", "Forward Early voltage (absent = none).") with { Min = 1, Max = 1e4 },
-            ParameterSpec.Number("n", "", "Emission coefficient.") with { Default = 1.0, Min = 0.5, Max = 4 },
-            ParameterSpec.Number("cje", "F", "Base–emitter zero-bias capacitance.") with { Default = 0, Min = 0, Max = 1e-6 },
-            ParameterSpec.Number("cjc", "F", "Base–collector zero-bias capacitance.") with { Default = 0, Min = 0, Max = 1e-6 },
-            ParameterSpec.Number("tf", "s", "Forward transit time.") with { Default = 0, Min = 0, Max = 1e-3 },
-            ParameterSpec.Number("tr", "s", "Reverse transit time.") with { Default = 0, Min = 0, Max = 1e-2 },
+            ParameterSpec.Number("saturationCurrent", "A", "Transport saturation current I_S.") with { Default = 1e-14, Min = 1e-20, Max = 1e-6 },
+            ParameterSpec.Number("forwardGain", "", "Forward current gain β_F.") with { Default = 200, Min = 1, Max = 5000 },
+            ParameterSpec.Number("reverseGain", "", "Reverse current gain β_R.") with { Default = 1, Min = 0.01, Max = 100 },
+            ParameterSpec.Number("earlyVoltage", "V", "Forward Early voltage (absent = none).") with { Min = 1, Max = 1e4 },
+            ParameterSpec.Number("emission", "", "Emission coefficient.") with { Default = 1.0, Min = 0.5, Max = 4 },
+            ParameterSpec.Number("baseEmitterCapacitance", "F", "Base–emitter zero-bias capacitance.") with { Default = 0, Min = 0, Max = 1e-6 },
+            ParameterSpec.Number("baseCollectorCapacitance", "F", "Base–collector zero-bias capacitance.") with { Default = 0, Min = 0, Max = 1e-6 },
+            ParameterSpec.Number("forwardTransitTime", "s", "Forward transit time.") with { Default = 0, Min = 0, Max = 1e-3 },
+            ParameterSpec.Number("reverseTransitTime", "s", "Reverse transit time.") with { Default = 0, Min = 0, Max = 1e-2 },
         ],
         Create = def =>
         [
             new Bjt(def.Id, def.Id, def.Node("c"), def.Node("b"), def.Node("e"), pnp,
-                def.Parameters.Number("is", 1e-14), def.Parameters.Number("bf", 200), def.Parameters.Number("br", 1),
-                def.Parameters.Number("vaf", double.PositiveInfinity), def.Parameters.Number("n", 1.0),
-                def.Parameters.Number("cje", 0), def.Parameters.Number("cjc", 0), tf: def.Parameters.Number("tf", 0), tr: def.Parameters.Number("tr", 0)),
+                def.Parameters.Number("saturationCurrent", 1e-14), def.Parameters.Number("forwardGain", 200), def.Parameters.Number("reverseGain", 1),
+                def.Parameters.Number("earlyVoltage", double.PositiveInfinity), def.Parameters.Number("emission", 1.0),
+                def.Parameters.Number("baseEmitterCapacitance", 0), def.Parameters.Number("baseCollectorCapacitance", 0), tf: def.Parameters.Number("forwardTransitTime", 0), tr: def.Parameters.Number("reverseTransitTime", 0)),
         ],
         ConductsDc = true,
     };

@@ -17,11 +17,11 @@ public sealed class CurrentSource : Device
         Waveform = waveform;
     }
 
-    /// <summary>Netlist kind "current-source": nodes [from, to], one of dc, pulse, sine, pwl in amperes.</summary>
+    /// <summary>Netlist kind "current-source": nodes [from, to], one of constant, pulse, sine, points in amperes.</summary>
     public static PartKind Kind { get; } = new()
     {
         Name = "current-source",
-        Description = "Independent current source (dc, pulse, sine or piecewise-linear); current flows through it from nodes[0] to nodes[1].",
+        Description = "Independent current source (constant, pulse, sine or points); current flows through it from nodes[0] to nodes[1].",
         Pins = ["p", "n"],
         UsesNodeList = true,
         Parameters = Waveform.Specs("A", 1e3),

@@ -6,7 +6,8 @@ namespace NightSim.Devices;
 /// Junction diode, anode a to cathode k: Shockley law I = I_S(e^(V/(N·V_T)) − 1) with series resistance, depletion and
 /// diffusion charge, and optional reverse breakdown I_bd = −I_BV·e^(−(V + BV)/(N_bv·V_T)) (used by the Zener kind).
 /// </summary>
-/// <remarks>Equations from Shockley 1949 and the textbook junction model (check-values.md §10). With a series
+/// <remarks>Equations from Shockley (Bell Syst. Tech. J. 28, 1949) and the textbook junction model (Sedra &amp; Smith,
+/// Microelectronic Circuits). With a series
 /// resistance the device reserves an internal node "&lt;name&gt;.j" between the resistance and the junction.</remarks>
 public sealed class Diode : Device
 {
@@ -69,21 +70,21 @@ public sealed class Diode : Device
         UsesNodeList = true,
         Parameters =
         [
-            ParameterSpec.Number("is", "A", "Saturation current I_S.") with { Default = 1e-14, Min = 1e-20, Max = 1e-3 },
-            ParameterSpec.Number("n", "", "Emission coefficient.") with { Default = 1.0, Min = 0.5, Max = 4 },
-            ParameterSpec.Number("rs", "Ω", "Series resistance.") with { Default = 0, Min = 0, Max = 1e4 },
-            ParameterSpec.Number("cjo", "F", "Zero-bias junction capacitance.") with { Default = 0, Min = 0, Max = 1e-6 },
-            ParameterSpec.Number("vj", "V", "Junction built-in potential.") with { Default = 0.75, Min = 0.1, Max = 2 },
-            ParameterSpec.Number("m", "", "Junction grading coefficient.") with { Default = 0.5, Min = 0.05, Max = 0.95 },
-            ParameterSpec.Number("tt", "s", "Transit time (diffusion charge).") with { Default = 0, Min = 0, Max = 1e-3 },
-            ParameterSpec.Number("bv", "V", "Reverse breakdown voltage (absent = no breakdown).") with { Min = 0.5, Max = 1e4 },
-            ParameterSpec.Number("ibv", "A", "Reverse current at the breakdown voltage.") with { Default = 1e-3, Min = 1e-12, Max = 10 },
+            ParameterSpec.Number("saturationCurrent", "A", "Saturation current I_S.") with { Default = 1e-14, Min = 1e-20, Max = 1e-3 },
+            ParameterSpec.Number("emission", "", "Emission coefficient.") with { Default = 1.0, Min = 0.5, Max = 4 },
+            ParameterSpec.Number("seriesResistance", "Ω", "Series resistance.") with { Default = 0, Min = 0, Max = 1e4 },
+            ParameterSpec.Number("junctionCapacitance", "F", "Zero-bias junction capacitance.") with { Default = 0, Min = 0, Max = 1e-6 },
+            ParameterSpec.Number("junctionPotential", "V", "Junction built-in potential.") with { Default = 0.75, Min = 0.1, Max = 2 },
+            ParameterSpec.Number("junctionGrading", "", "Junction grading coefficient.") with { Default = 0.5, Min = 0.05, Max = 0.95 },
+            ParameterSpec.Number("transitTime", "s", "Transit time (diffusion charge).") with { Default = 0, Min = 0, Max = 1e-3 },
+            ParameterSpec.Number("breakdownVoltage", "V", "Reverse breakdown voltage (absent = no breakdown).") with { Min = 0.5, Max = 1e4 },
+            ParameterSpec.Number("breakdownCurrent", "A", "Reverse current at the breakdown voltage.") with { Default = 1e-3, Min = 1e-12, Max = 10 },
         ],
         Create = def =>
         [
-            new Diode(def.Id, def.Id, def.Node("anode"), def.Node("cathode"), def.Parameters.Number("is", 1e-14), def.Parameters.Number("n", 1.0),
-                def.Parameters.Number("rs", 0), def.Parameters.Number("cjo", 0), def.Parameters.Number("vj", 0.75), def.Parameters.Number("m", 0.5),
-                def.Parameters.Number("tt", 0), def.Parameters.Number("bv", double.PositiveInfinity), def.Parameters.Number("ibv", 1e-3)),
+            new Diode(def.Id, def.Id, def.Node("anode"), def.Node("cathode"), def.Parameters.Number("saturationCurrent", 1e-14), def.Parameters.Number("emission", 1.0),
+                def.Parameters.Number("seriesResistance", 0), def.Parameters.Number("junctionCapacitance", 0), def.Parameters.Number("junctionPotential", 0.75), def.Parameters.Number("junctionGrading", 0.5),
+                def.Parameters.Number("transitTime", 0), def.Parameters.Number("breakdownVoltage", double.PositiveInfinity), def.Parameters.Number("breakdownCurrent", 1e-3)),
         ],
         ConductsDc = true,
     };

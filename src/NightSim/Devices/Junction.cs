@@ -41,7 +41,7 @@ public static class Junction
     }
 
     /// <summary>
-    /// Limit a new junction voltage against the previous iterate (pnjlim). Returns the voltage to use and sets
+    /// Limit a new junction voltage against the previous iterate (logarithmic limiting). Returns the voltage to use and sets
     /// <paramref name="limited"/> when it differs from <paramref name="vNew"/>.
     /// </summary>
     /// <param name="vNew">Junction voltage from the Newton update, volts.</param>

@@ -48,8 +48,8 @@ public sealed record RelayContact(string Label, string A, string B, bool Normall
 /// rated voltages are converted with the coil resistance (steady state). Event 0: |i| − I_pull while released,
 /// I_drop − |i| while pulled in (negative while consistent). Event 1: t − t_due while the armature is travelling, −1
 /// otherwise. Contacts stamp the same slots in both states; their conductance blends geometrically over the transition.
-/// Default values are those of a generic 12 V relay class (check-values §8: 400 Ω, pull-in 9.0 V, drop-out 1.2 V,
-/// operate ≤ 10 ms, release ≤ 5 ms, common practice; 0.5 H from memory).
+/// Default values are those of a generic 12 V relay class (400 Ω, pull-in 9.0 V, drop-out 1.2 V, operate ≤ 10 ms,
+/// release ≤ 5 ms: common practice for the class; 0.5 H from memory).
 /// </remarks>
 public sealed class Relay : Device, IEventSource, ISwitchedLoad
 {

@@ -2,7 +2,7 @@ namespace NightSim.Devices;
 
 /// <summary>
 /// Allocation services for <see cref="Device.Setup"/>: node and branch unknowns, matrix slots of the fixed
-/// sparsity pattern, light channels. Ground ("0") maps to -1 everywhere; slots touching ground are -1 and are
+/// sparsity pattern, light channels. Ground ("gnd") maps to -1 everywhere; slots touching ground are -1 and are
 /// skipped by the stamping helpers.
 /// </summary>
 public abstract class SetupContext

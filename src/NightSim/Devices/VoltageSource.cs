@@ -16,11 +16,11 @@ public sealed class VoltageSource : Device
         Waveform = waveform;
     }
 
-    /// <summary>Netlist kind "voltage-source": nodes [p, n] (p is +), one of dc, pulse, sine, pwl in volts.</summary>
+    /// <summary>Netlist kind "voltage-source": nodes [p, n] (p is +), one of constant, pulse, sine, points in volts.</summary>
     public static PartKind Kind { get; } = new()
     {
         Name = "voltage-source",
-        Description = "Independent voltage source (dc, pulse, sine or piecewise-linear); nodes [+, −].",
+        Description = "Independent voltage source (constant, pulse, sine or points); nodes [+, −].",
         Pins = ["p", "n"],
         UsesNodeList = true,
         Parameters = Waveform.Specs("V", 1e6),

@@ -50,11 +50,11 @@ public sealed class Waveform
     {
         rise = Math.Max(rise, 1e-9);
         fall = Math.Max(fall, 1e-9);
-        if (!(width >= 0)) throw new ArgumentOutOfRangeException(nameof(width), width, "pulse width must be ≥ 0 s");
-        if (!(period > 0)) throw new ArgumentOutOfRangeException(nameof(period), period, "pulse period must be > 0 s");
+        if (!(width >= 0)) throw new ArgumentOutOfRangeException(nameof(width), width, "pulse hold must be ≥ 0 s");
+        if (!(period > 0)) throw new ArgumentOutOfRangeException(nameof(period), period, "pulse repeatEvery must be > 0 s");
         if (!double.IsPositiveInfinity(period) && rise + width + fall > period)
             throw new ArgumentException(
-                $"pulse rise + width + fall ({EngineeringValue.Format(rise + width + fall, "s")}) exceeds its period ({EngineeringValue.Format(period, "s")}). hint: shorten \"width\" or lengthen \"period\"",
+                $"pulse riseTime + hold + fallTime ({EngineeringValue.Format(rise + width + fall, "s")}) exceeds repeatEvery ({EngineeringValue.Format(period, "s")}). hint: shorten \"hold\" or lengthen \"repeatEvery\"",
                 nameof(period));
         return new(WaveformShape.Pulse, [delay, rise, width, fall, period], [v1, v2]);
     }
@@ -85,53 +85,53 @@ public sealed class Waveform
         return new(WaveformShape.PiecewiseLinear, t, v);
     }
 
-    /// <summary>Parameter specs of the waveform choice (dc, pulse, sine, pwl) in <paramref name="unit"/> ("V" or "A").</summary>
+    /// <summary>Parameter specs of the waveform choice (constant, pulse, sine, points) in <paramref name="unit"/> ("V" or "A").</summary>
     public static IReadOnlyList<ParameterSpec> Specs(string unit, double maxMagnitude) =>
     [
-        ParameterSpec.Number("dc", unit, $"Constant value ({unit}).") with { Min = -maxMagnitude, Max = maxMagnitude, ExclusiveGroup = "waveform" },
-        ParameterSpec.Group("pulse", $"Trapezoidal pulse ({unit}); period absent = one pulse.",
-            ParameterSpec.Number("v1", unit, "Value before and between pulses.") with { Default = 0, Min = -maxMagnitude, Max = maxMagnitude },
-            ParameterSpec.Number("v2", unit, "Pulse value.") with { Required = true, Min = -maxMagnitude, Max = maxMagnitude },
-            ParameterSpec.Number("delay", "s", "Time of the first rising edge.") with { Default = 0, Min = 0 },
-            ParameterSpec.Number("rise", "s", "Ramp time from v1 to v2.") with { Default = 1e-6, Min = 0 },
-            ParameterSpec.Number("fall", "s", "Ramp time from v2 back to v1.") with { Default = 1e-6, Min = 0 },
-            ParameterSpec.Number("width", "s", "Time at v2 (absent = stays at v2).") with { Min = 0 },
-            ParameterSpec.Number("period", "s", "Repetition period (absent = one pulse).") with { Min = 1e-12 }) with { ExclusiveGroup = "waveform" },
+        ParameterSpec.Number("constant", unit, $"Constant value ({unit}).") with { Min = -maxMagnitude, Max = maxMagnitude, ExclusiveGroup = "waveform" },
+        ParameterSpec.Group("pulse", $"Trapezoidal pulse ({unit}); repeatEvery absent = one pulse.",
+            ParameterSpec.Number("base", unit, "Level before and between pulses.") with { Default = 0, Min = -maxMagnitude, Max = maxMagnitude },
+            ParameterSpec.Number("peak", unit, "Level during the pulse.") with { Required = true, Min = -maxMagnitude, Max = maxMagnitude },
+            ParameterSpec.Number("start", "s", "Time the first rising ramp begins.") with { Default = 0, Min = 0 },
+            ParameterSpec.Number("riseTime", "s", "Ramp time from base to peak.") with { Default = 1e-6, Min = 0 },
+            ParameterSpec.Number("fallTime", "s", "Ramp time from peak back to base.") with { Default = 1e-6, Min = 0 },
+            ParameterSpec.Number("hold", "s", "Time held at peak (absent = stays at peak).") with { Min = 0 },
+            ParameterSpec.Number("repeatEvery", "s", "Time from one pulse start to the next (absent = one pulse).") with { Min = 1e-12 }) with { ExclusiveGroup = "waveform" },
         ParameterSpec.Group("sine", $"Sine wave ({unit}), e.g. mains.",
             ParameterSpec.Number("offset", unit, "Mean value.") with { Default = 0, Min = -maxMagnitude, Max = maxMagnitude },
             ParameterSpec.Number("amplitude", unit, "Peak deviation from the offset.") with { Required = true, Min = -maxMagnitude, Max = maxMagnitude },
             ParameterSpec.Number("frequency", "Hz", "Frequency.") with { Required = true, Min = 0, Max = 1e9 },
-            ParameterSpec.Number("delay", "s", "Start time of the oscillation.") with { Default = 0, Min = 0 },
+            ParameterSpec.Number("start", "s", "Start time of the oscillation.") with { Default = 0, Min = 0 },
             ParameterSpec.Number("phase", "°", "Phase at the start, degrees.") with { Default = 0, Min = -360, Max = 360 }) with { ExclusiveGroup = "waveform" },
-        ParameterSpec.PointList("pwl", unit, $"Piecewise-linear [[time, value], ...] ({unit}), times increasing.") with { ExclusiveGroup = "waveform" },
+        ParameterSpec.PointList("points", unit, $"Straight lines through [[time, value], ...] ({unit}), times increasing.") with { ExclusiveGroup = "waveform" },
     ];
 
-    /// <summary>Cross-check for source kinds: exactly one of dc, pulse, sine, pwl must be given.</summary>
+    /// <summary>Cross-check for source kinds: exactly one of constant, pulse, sine, points must be given.</summary>
     public static IEnumerable<string> CheckChoice(PartDefinition part)
     {
         PartParameters p = part.Parameters;
-        if (!p.Has("dc") && !p.Has("pulse") && !p.Has("sine") && !p.Has("pwl"))
-            yield return "no waveform given. hint: add one of \"dc\": \"12V\", \"pulse\": { … }, \"sine\": { … } or \"pwl\": [[t, v], …]";
-        if (p.Object("pulse") is { } pulse && pulse.Has("period") && !pulse.Has("width"))
-            yield return "a repeating pulse needs \"width\". hint: add \"width\" (time at v2), shorter than \"period\" minus the ramps";
+        if (!p.Has("constant") && !p.Has("pulse") && !p.Has("sine") && !p.Has("points"))
+            yield return "no waveform given. hint: add one of \"constant\": \"12V\", \"pulse\": { … }, \"sine\": { … } or \"points\": [[t, v], …]";
+        if (p.Object("pulse") is { } pulse && pulse.Has("repeatEvery") && !pulse.Has("hold"))
+            yield return "a repeating pulse needs \"hold\". hint: add \"hold\" (time at peak), shorter than \"repeatEvery\" minus the ramps";
     }
 
-    /// <summary>Builds the waveform from validated part parameters (one of dc, pulse, sine, pwl; none = dc 0).</summary>
+    /// <summary>Builds the waveform from validated part parameters (one of constant, pulse, sine, points; none = constant 0).</summary>
     public static Waveform FromParameters(PartParameters p)
     {
         if (p.Object("pulse") is { } pulse)
         {
-            double width = pulse.Number("width", double.PositiveInfinity);
-            return Pulse(pulse.Number("v1", 0), pulse.Number("v2"), pulse.Number("delay", 0), pulse.Number("rise", 1e-6),
-                pulse.Number("fall", 1e-6), width, pulse.Number("period", double.PositiveInfinity));
+            double hold = pulse.Number("hold", double.PositiveInfinity);
+            return Pulse(pulse.Number("base", 0), pulse.Number("peak"), pulse.Number("start", 0), pulse.Number("riseTime", 1e-6),
+                pulse.Number("fallTime", 1e-6), hold, pulse.Number("repeatEvery", double.PositiveInfinity));
         }
         if (p.Object("sine") is { } sine)
         {
-            return Sine(sine.Number("offset", 0), sine.Number("amplitude"), sine.Number("frequency"), sine.Number("delay", 0),
+            return Sine(sine.Number("offset", 0), sine.Number("amplitude"), sine.Number("frequency"), sine.Number("start", 0),
                 sine.Number("phase", 0));
         }
-        if (p.Points("pwl") is { } points) return PiecewiseLinear(points);
-        return Dc(p.Number("dc", 0));
+        if (p.Points("points") is { } points) return PiecewiseLinear(points);
+        return Dc(p.Number("constant", 0));
     }
 
     /// <summary>Steps per period a sine needs (second-order method, a few per cent of amplitude at most; common practice

@@ -12,7 +12,7 @@ namespace NightSim.Netlist;
 /// <remarks>
 /// Format: top level { "$schema", "name", "description", "parts": [ … ] }; a part is { "id", "kind", "nodes": [ … ] }
 /// for two-terminal kinds or { "id", "kind", "pins": { pin: node } } for multi-pin kinds, and its parameters are the
-/// other keys ("value": "4k7"). Ground is "0" or "gnd" (any case) and is normalised to "0".
+/// other keys ("value": "4k7"). Ground is written "gnd" (any case) and is normalised to "gnd"; a bare "0" is also taken as ground.
 /// Checks: JSON syntax, unknown kind, missing or extra pins, unknown parameter (nearest valid name), bad value, value
 /// out of its physical range, duplicate id, a node with a single connection, no ground, a loop of voltage sources, and
 /// a node with no DC path to ground.
@@ -57,11 +57,14 @@ public static class NetlistLoader
     /// <summary>Reads and validates JSON text without throwing for bad input.</summary>
     public static NetlistLoadResult ReadText(string json, string fileName = "netlist.json") => ReadUtf8(Encoding.UTF8.GetBytes(json), fileName);
 
-    /// <summary>True for a ground name: "0" or "gnd" in any case.</summary>
+    /// <summary>The ground node's name, as documented and as the engine sees it.</summary>
+    public const string Ground = "gnd";
+
+    /// <summary>True for a ground name: "gnd" in any case (a bare "0" is accepted too, never shown).</summary>
     public static bool IsGround(string node) => node == "0" || node.Equals("gnd", StringComparison.OrdinalIgnoreCase);
 
-    /// <summary>The node name as the engine sees it: ground becomes "0", other names are trimmed.</summary>
-    public static string NormalizeNode(string node) => IsGround(node.Trim()) ? "0" : node.Trim();
+    /// <summary>The node name as the engine sees it: ground becomes "gnd", other names are trimmed.</summary>
+    public static string NormalizeNode(string node) => IsGround(node.Trim()) ? Ground : node.Trim();
 
     private static NetlistLoadResult ReadUtf8(byte[] utf8, string file)
     {
@@ -331,7 +334,7 @@ public static class NetlistLoader
                     string itemPath = $"{path}.nodes[{i}]";
                     if (items[i].Kind != JsonTreeKind.String || string.IsNullOrWhiteSpace(items[i].Text))
                     {
-                        Error(items[i], itemPath, partId, $"a node name must be a non-empty string, not {items[i].Describe()}", "ground is \"0\" or \"gnd\"");
+                        Error(items[i], itemPath, partId, $"a node name must be a non-empty string, not {items[i].Describe()}", "ground is \"gnd\"");
                         ok = false;
                         continue;
                     }
@@ -379,7 +382,7 @@ public static class NetlistLoader
                 }
                 if (p.Value.Kind != JsonTreeKind.String || string.IsNullOrWhiteSpace(p.Value.Text))
                 {
-                    Error(p.Value, pinPath, partId, $"a node name must be a non-empty string, not {p.Value.Describe()}", "ground is \"0\" or \"gnd\"");
+                    Error(p.Value, pinPath, partId, $"a node name must be a non-empty string, not {p.Value.Describe()}", "ground is \"gnd\"");
                     ok = false;
                     continue;
                 }
@@ -422,9 +425,12 @@ public static class NetlistLoader
         private void UnknownKey(JsonTreeProperty p, string path, string? partId, IEnumerable<string> valid, string what)
         {
             List<string> names = valid.ToList();
-            string? near = NearestName.Find(p.Name, names);
+            string? successor = RetiredNames.Successor(p.Name, names);
+            string? near = successor is null ? NearestName.Find(p.Name, names) : null;
+            string lead = successor is not null ? $"this parameter is now called \"{successor}\". "
+                : near is not null ? $"did you mean \"{near}\"? " : "";
             Error(p.Line, p.Column, path, partId, string.Format(CultureInfo.InvariantCulture, what, "\"" + p.Name + "\""),
-                (near is null ? "" : $"did you mean \"{near}\"? ") + "valid: " + string.Join(", ", names));
+                lead + "valid: " + string.Join(", ", names));
         }
 
         private PartParameters? ReadParameters(IReadOnlyList<ParameterSpec> specs, JsonTree obj, string path, string partId,
@@ -636,13 +642,13 @@ public static class NetlistLoader
                 list.Add(r);
             }
 
-            if (!byNode.ContainsKey("0"))
+            if (!byNode.ContainsKey(Ground))
             {
                 Error(partsArray, "$.parts", null, "no part connects to ground",
-                    "connect the supply's negative terminal (and every return) to \"0\" or \"gnd\"");
+                    "connect the supply's negative terminal (and every return) to \"gnd\"");
             }
 
-            List<string> publicNodes = byNode.Keys.Where(n => n != "0" && !_privateNodes.Contains(n)).ToList();
+            List<string> publicNodes = byNode.Keys.Where(n => n != Ground && !_privateNodes.Contains(n)).ToList();
             foreach (string node in publicNodes)
             {
                 List<NodeRef> refs = byNode[node];
@@ -688,7 +694,7 @@ public static class NetlistLoader
             }
 
             // DC path to ground: union of nodes through parts that conduct at DC.
-            if (!byNode.ContainsKey("0")) return;
+            if (!byNode.ContainsKey(Ground)) return;
             var dc = new UnionFind();
             foreach (IGrouping<int, NodeRef> part in _nodeRefs.GroupBy(r => r.PartIndex))
             {
@@ -697,7 +703,7 @@ public static class NetlistLoader
                 string first = part.First().Node;
                 foreach (NodeRef r in part) dc.Union(first, r.Node);
             }
-            string groundRoot = dc.Find("0");
+            string groundRoot = dc.Find(Ground);
             foreach (IGrouping<string, string> island in byNode.Keys.Where(n => dc.Find(n) != groundRoot).GroupBy(dc.Find))
             {
                 List<string> names = island.Where(n => !_privateNodes.Contains(n)).ToList();
@@ -706,7 +712,7 @@ public static class NetlistLoader
                 string list = string.Join(", ", names.Select(n => "\"" + n + "\""));
                 Error(r.Line, r.Column, r.Path, r.PartId,
                     names.Count == 1 ? $"node {list} has no DC path to ground" : $"nodes {list} have no DC path to ground",
-                    $"they connect only through capacitors or current sources; add a leak resistor, e.g. {{ \"kind\": \"resistor\", \"nodes\": [\"{names[0]}\", \"0\"], \"value\": \"100M\" }}");
+                    $"they connect only through capacitors or current sources; add a leak resistor, e.g. {{ \"kind\": \"resistor\", \"nodes\": [\"{names[0]}\", \"gnd\"], \"value\": \"100M\" }}");
             }
         }
     }

@@ -63,7 +63,7 @@ public static class NetlistSchema
             w.WriteStartObject("node");
             w.WriteString("type", "string");
             w.WriteNumber("minLength", 1);
-            w.WriteString("description", "Node name; ground is \"0\" or \"gnd\".");
+            w.WriteString("description", "Node name; ground is \"gnd\".");
             w.WriteEndObject();
             w.WriteStartObject("engineeringValue");
             w.WriteString("description", "A number, or a string in engineering notation with an optional unit: \"4k7\", \"100n\", \"2.2M\", \"3300uF\" (m is milli, M is mega).");

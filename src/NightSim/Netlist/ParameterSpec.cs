@@ -47,7 +47,7 @@ public sealed record ParameterSpec(string Name, ParameterType Type, string Unit,
     public string PointsXUnit { get; init; } = "s";
 
     /// <summary>Number of parameters of the object when described as a group of mutually exclusive alternatives
-    /// (e.g. a source is one of dc / pulse / sine / pwl). Names listed here exclude each other.</summary>
+    /// (e.g. a source is one of constant / pulse / sine / points). Names listed here exclude each other.</summary>
     public string? ExclusiveGroup { get; init; }
 
     public static ParameterSpec Number(string name, string unit, string description) => new(name, ParameterType.Number, unit, description);

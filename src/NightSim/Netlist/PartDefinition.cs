@@ -13,7 +13,7 @@ public sealed record SourceLocation(string File, string JsonPath, int Line, int 
 /// <summary>One validated part of a netlist: id, kind, pin → node map and typed parameters.</summary>
 /// <param name="Id">Part id, unique in the netlist ("R1", "U1").</param>
 /// <param name="Kind">Catalogue kind ("resistor", "timer-555", …).</param>
-/// <param name="Pins">Pin name → node name; ground is always "0".</param>
+/// <param name="Pins">Pin name → node name; ground is always "gnd".</param>
 /// <param name="Parameters">Typed SI parameters with defaults applied.</param>
 /// <param name="Location">Where the part is written, for messages.</param>
 public sealed record PartDefinition(

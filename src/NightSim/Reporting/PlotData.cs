@@ -12,7 +12,7 @@ public enum PlotPanel
 }
 
 /// <summary>One plotted series: run times (seconds since <see cref="PlotData.Origin"/>) and values in SI.</summary>
-/// <param name="Title">Legend text, e.g. "V(trig) trigger pin".</param>
+/// <param name="Title">Legend text, e.g. "trigger pin (node trig)".</param>
 /// <param name="Unit">"lx", "V", "" for states.</param>
 /// <param name="Panel">Panel it is drawn in.</param>
 /// <param name="Times">Run times, seconds, ascending.</param>

@@ -6,7 +6,7 @@ namespace NightSim.Reporting;
 /// <param name="Origin">Clock time of run time 0 (site local, with offset).</param>
 /// <param name="TimeZone">Site time zone for the clock column, or null to keep the origin's offset.</param>
 /// <param name="Times">Run times, seconds, ascending.</param>
-/// <param name="Names">Column names with units, e.g. "V(sens) V", "illuminance lx", "relay 0/1".</param>
+/// <param name="Names">Column names with units, e.g. "sens_volts", "illuminance_lux", "load_on" (1 while the load is on, else 0).</param>
 /// <param name="Columns">Values in SI, one array per name, each as long as <paramref name="Times"/>. NaN is written as an empty cell.</param>
 public sealed record TraceTable(
     DateTimeOffset Origin,

@@ -4,7 +4,7 @@ using System.Text;
 namespace NightSim.Results;
 
 /// <summary>
-/// Writes traces as CSV: a header "time_s,&lt;name&gt;_&lt;unit&gt;…" and one row per time at which any trace has a point
+/// Writes traces as CSV: a header "time_s,&lt;name&gt;_volts|_amps…" and one row per time at which any trace has a point
 /// (all traces of a run share their sample times until decimation; decimated traces are interpolated linearly between
 /// their own kept points). Culture-invariant, round-trip precision ("R").
 /// </summary>
@@ -47,6 +47,6 @@ public static class TraceCsv
     private static string Column(Trace t)
     {
         string name = t.Name.Replace(',', '_').Replace('"', '_');
-        return t.Unit == "A" ? name + "_A" : name + "_V";
+        return t.Unit == "A" ? name + "_amps" : name + "_volts";
     }
 }

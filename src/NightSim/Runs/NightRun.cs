@@ -104,7 +104,7 @@ public static class NightRun
             foreach (string pin in pins)
             {
                 string node = p.Pins[pin];
-                if (node != "0" && seen.Add(node)) list.Add(node);
+                if (!NetlistLoader.IsGround(node) && seen.Add(node)) list.Add(node);
             }
         }
         return list;
@@ -115,7 +115,7 @@ public static class NightRun
     public static bool TouchesMains(NetlistDefinition net) =>
         net.Parts.Any(p => p.Kind == "relay" && p.Parameters.Has("load"))
         || net.Parts.Any(p => p.Kind == "voltage-source" &&
-            (Math.Abs(p.Parameters.Number("dc", 0)) >= 50 || Math.Abs(p.Parameters.Object("sine")?.Number("amplitude", 0) ?? 0) >= 50));
+            (Math.Abs(p.Parameters.Number("constant", 0)) >= 50 || Math.Abs(p.Parameters.Object("sine")?.Number("amplitude", 0) ?? 0) >= 50));
 
     private static void AddNoise(LightProfile profile, List<Device> devices)
     {

@@ -41,17 +41,17 @@ public static class NightTraces
         {
             Trace? tr = sim.Trace(node);
             if (tr is null) continue;
-            names.Add($"V({node}) V");
+            names.Add($"{node}_volts");
             columns.Add(SameTimes(tr, times) ? [.. tr.Values] : [.. times.Select(tr.At)]);
         }
         if (profile is not null)
         {
-            names.Add("illuminance lx");
+            names.Add("illuminance_lux");
             columns.Add([.. times.Select(t => SensorLux(facts, t))]);
         }
         if (facts.LoadTransitions.Count > 0)
         {
-            names.Add("load 0/1");
+            names.Add("load_on");
             columns.Add([.. times.Select(t => LoadOn(facts, t) ? 1.0 : 0.0)]);
         }
         return new TraceTable(facts.Origin, facts.TimeZone, times, names, columns);
@@ -159,9 +159,9 @@ public static class NightTraces
 
     private static IEnumerable<(string Node, string Title)> Voltages(NodeRoles roles)
     {
-        foreach (string s in roles.Sensor) yield return (s, $"V({s}) sensor");
-        if (roles.Trigger is string t) yield return (t, $"V({t}) trigger pin");
-        if (roles.Timing is string c && c != roles.Trigger) yield return (c, $"V({c}) timing capacitor");
+        foreach (string s in roles.Sensor) yield return (s, $"sensor (node {s})");
+        if (roles.Trigger is string t) yield return (t, $"trigger pin (node {t})");
+        if (roles.Timing is string c && c != roles.Trigger) yield return (c, $"timing capacitor (node {c})");
     }
 
     private static void AddThirds(List<PlotSeries> series, NodeRoles roles, SimulationResult sim, double[] times)

@@ -13,7 +13,7 @@ public sealed record NodeRoles(IReadOnlyList<string> Sensor, string? Trigger, st
     {
         PartDefinition? timer = net.Parts.FirstOrDefault(p => p.Kind == "timer-555");
         string? supply = timer?.Pins.GetValueOrDefault("vcc")
-            ?? net.Parts.Where(p => p.Kind == "voltage-source").Select(p => Pin(p, 0)).FirstOrDefault(n => n is not null && n != "0");
+            ?? net.Parts.Where(p => p.Kind == "voltage-source").Select(p => Pin(p, 0)).FirstOrDefault(n => n is not null && !NetlistLoader.IsGround(n));
         var supplies = new HashSet<string>(net.Parts.Where(p => p.Kind == "voltage-source").Select(p => Pin(p, 0) ?? ""), StringComparer.Ordinal);
         if (supply is not null) supplies.Add(supply);
         var sensors = new List<string>();
@@ -21,7 +21,7 @@ public sealed record NodeRoles(IReadOnlyList<string> Sensor, string? Trigger, st
         {
             foreach (string node in p.Pins.Values)
             {
-                if (node != "0" && !supplies.Contains(node) && !sensors.Contains(node)) sensors.Add(node);
+                if (!NetlistLoader.IsGround(node) && !supplies.Contains(node) && !sensors.Contains(node)) sensors.Add(node);
             }
         }
         return new NodeRoles(sensors, timer?.Pins.GetValueOrDefault("trigger"), timer?.Pins.GetValueOrDefault("threshold"), supply);

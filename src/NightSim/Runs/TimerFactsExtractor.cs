@@ -26,7 +26,7 @@ public static class TimerFactsExtractor
             {
                 if (!TwoNodes(p, out string a, out string b)) continue;
                 bool toSupply = (a == th && b == vcc) || (a == vcc && b == th);
-                bool toGround = (a == th && b == "0") || (a == "0" && b == th);
+                bool toGround = (a == th && NetlistLoader.IsGround(b)) || (NetlistLoader.IsGround(a) && b == th);
                 if (p.Kind == "resistor" && toSupply) conductance += 1.0 / p.Parameters.Number("value");
                 if (p.Kind == "capacitor" && toGround)
                 {
@@ -54,7 +54,7 @@ public static class TimerFactsExtractor
     {
         foreach (PartDefinition p in netlist.Parts.Where(p => p.Kind == "voltage-source"))
         {
-            if (TwoNodes(p, out string a, out string b) && a == node && b == "0" && p.Parameters.OptionalNumber("dc") is double dc) return dc;
+            if (TwoNodes(p, out string a, out string b) && a == node && NetlistLoader.IsGround(b) && p.Parameters.OptionalNumber("constant") is double dc) return dc;
         }
         return null;
     }

@@ -5,7 +5,7 @@ namespace NightSim.Sky;
 /// <summary>
 /// Weather of a scenario. <see cref="SkyFactor"/> divides the Sun and night-floor terms of the USNO Circular 171 model
 /// (1 clear, 2 thin cloud, 3 average cloud, 10 dark stratus). <see cref="MoonLux"/> is a constant open-sky moonlight
-/// level (full Moon high ≈ 0.1–0.3 lx, quarter ≈ 0.01 lx; check-values §2), also divided by the sky factor.
+/// level (full Moon high ≈ 0.1–0.3 lx, quarter ≈ 0.01 lx; common practice), also divided by the sky factor.
 /// <see cref="FloorLux"/> is a light floor at the sensor (street lighting), added on every channel. With
 /// <see cref="ModeledMoon"/> the Moon's position and phase are computed (<see cref="MoonPosition"/>) and its light
 /// comes from the Circular 171 moonlight formula (<see cref="IlluminanceModel.MoonLux"/>) instead of a constant.

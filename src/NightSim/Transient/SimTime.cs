@@ -4,7 +4,7 @@ namespace NightSim.Transient;
 /// Run time as a compensated sum (Kahan–Babuška, via Knuth's TwoSum): a high part and the rounding error of every
 /// addition kept in a low part, so that a year of steps (≈ 10⁶ additions at t ≈ 3e7 s, where one ulp is 3.7 ns)
 /// does not drift. Breakpoints and events are landed on by assignment, never by adding up steps; step sizes are
-/// carried, never recomputed as differences of absolute times (numerics.md §3).
+/// carried, never recomputed as differences of absolute times (docs/numerics.md §3).
 /// </summary>
 public struct SimTime
 {

@@ -3,7 +3,7 @@ namespace NightSim.Transient;
 /// <summary>Knobs of a transient run. Immutable; start from <see cref="Default"/> and change with <c>with</c>.</summary>
 public sealed record TransientOptions
 {
-    /// <summary>Production defaults (numerics.md §2).</summary>
+    /// <summary>Production defaults (docs/numerics.md §2).</summary>
     public static TransientOptions Default { get; } = new();
 
     /// <summary>Tight settings for verification against closed forms.</summary>

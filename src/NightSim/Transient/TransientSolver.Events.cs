@@ -2,7 +2,7 @@ using NightSim.Results;
 
 namespace NightSim.Transient;
 
-/// <summary>Event location and firing (numerics.md §5): sign changes of event functions between accepted points.</summary>
+/// <summary>Event location and firing (docs/numerics.md §5): sign changes of event functions between accepted points.</summary>
 public sealed partial class TransientSolver
 {
     private const double MachineEpsilon = 2.220446049250313e-16;
@@ -38,7 +38,7 @@ public sealed partial class TransientSolver
     }
 
     /// <summary>
-    /// Earliest crossing in (t, t + h], located on real steps (numerics.md §5). The bracket [lo, hi] (step lengths
+    /// Earliest crossing in (t, t + h], located on real steps (docs/numerics.md §5). The bracket [lo, hi] (step lengths
     /// from t) starts as [0, h]: no function has changed sign at t, some have at t + h. Each trial length h* is a
     /// real re-taken step from t_n (interpolated algebraic unknowns are not a solution); its event values shrink the
     /// bracket. The first trial is the earliest root of the step's dense output (Illinois); later trials are Illinois
@@ -51,7 +51,7 @@ public sealed partial class TransientSolver
         EnsureLocateBuffers();
         int m = _eventSource.Length;
         // Tolerance: ε_t (1e-9 s absolute by default), never below 100ε·(|t| + h) (a few tens of ulps of the absolute
-        // time, numerics.md §3), never above 1 µs unless the time resolution itself is coarser.
+        // time, docs/numerics.md §3), never above 1 µs unless the time resolution itself is coarser.
         double floor = 100.0 * MachineEpsilon * (Math.Abs(t) + h);
         double ttol = Math.Min(Math.Max(_options.EventTimeTolerance, floor), Math.Max(1e-6, floor));
         double thetaTol = ttol / h;

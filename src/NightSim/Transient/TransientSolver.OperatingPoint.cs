@@ -2,7 +2,7 @@ using NightSim.Netlist;
 
 namespace NightSim.Transient;
 
-/// <summary>DC operating point (numerics.md §7): Newton with limiting, then gmin stepping, then source stepping.</summary>
+/// <summary>DC operating point (docs/numerics.md §7): Newton with limiting, then gmin stepping, then source stepping.</summary>
 public sealed partial class TransientSolver
 {
     /// <summary>Solve the DC operating point of a fresh circuit (devices at their power-up state).</summary>

@@ -9,7 +9,8 @@ namespace NightSim.Transient;
 /// <summary>
 /// The transient driver for one run of one circuit: power-up (or operating point), then accepted steps of TR-BDF2
 /// (default), backward Euler or the trapezoidal rule with local-error control, breakpoints landed on exactly and
-/// discrete events located and fired between steps. See docs/step-loop.md for the loop in one page.
+/// discrete events located and fired between steps. The loop in one page: DEVELOPERS.md, "The step loop"; the
+/// numerics and their published sources: docs/numerics.md.
 /// </summary>
 /// <remarks>
 /// Formulation (charge-oriented MNA, Ho–Ruehli–Brennan 1975): F(x, t) = dq(x)/dt + j(x, t) = 0. Every formula replaces
@@ -19,7 +20,7 @@ namespace NightSim.Transient;
 /// </remarks>
 public sealed partial class TransientSolver
 {
-    // TR-BDF2 constants, γ = 2 − √2 (numerics.md §1).
+    // TR-BDF2 constants, γ = 2 − √2 (docs/numerics.md §1).
     private static readonly double s_gamma = 2.0 - Math.Sqrt(2.0);
     private static readonly double s_d = s_gamma / 2.0;
     private static readonly double s_a = 1.0 / (s_gamma * (2.0 - s_gamma));
@@ -301,7 +302,8 @@ public sealed partial class TransientSolver
                 if (_failuresHere >= 2) _needRestart = true; // two failures at this point: fall back to BE
                 if (_h < hMin && _opGmin == 0)
                 {
-                    // Last resort before giving up: a temporary 1e-9 S shunt on every node for this step (numerics.md §6).
+                    // Last resort before giving up: a temporary 1e-9 S shunt on every node for this step
+                    // (docs/numerics.md §6).
                     _opGmin = 1e-9;
                     _h = Math.Max(hMin, _options.RestartStep);
                     _failuresHere = 0;
@@ -585,7 +587,7 @@ public sealed partial class TransientSolver
         int n = _n;
         if (_lastStepWasTrBdf2)
         {
-            // Quadratic through x_n (θ = 0), x_γ (θ = γ), x_{n+1} (θ = 1) (numerics.md §5).
+            // Quadratic through x_n (θ = 0), x_γ (θ = γ), x_{n+1} (θ = 1) (docs/numerics.md §5).
             double g = s_gamma;
             double w0 = (theta - g) * (theta - 1.0) / g;
             double wg = theta * (theta - 1.0) / (g * (g - 1.0));

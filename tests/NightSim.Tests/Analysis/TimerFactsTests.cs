@@ -4,12 +4,13 @@ namespace NightSim.Tests.Analysis;
 
 public class TimerFactsTests
 {
-    // Textbook 555 one-shot: T = RC·ln 3 (check-values Q7, [CALC]).
+    // Textbook 555 one-shot: T = RC·ln 3 (the 555 monostable relation, Horowitz & Hill, The Art of Electronics, 3rd ed., ch. 7); 1 MΩ · 100 µF · ln 3 = 109.861 s.
     [Fact]
     public void IdealWidthIsLn3RC() =>
         Assert.Equal(109.861, new TimerFacts("U1", 1e6, 100e-6, 12, 0, double.PositiveInfinity).ClosedFormWidth, 3);
 
-    // Constant drain I_p: t = RC·ln(A/(A − 2V/3)), A = V − I_p·R (check-values §6 drain sweep, [CALC]).
+    // Constant drain I_p: t = RC·ln(A/(A − 2V/3)), A = V − I_p·R (textbook RC charging with a constant drain, solved for
+    // the 2/3 threshold; the expected values are computed from that formula).
     [Theory]
     [InlineData(0.5e-6, 118.96)]
     [InlineData(1e-6, 129.93)]
@@ -19,7 +20,8 @@ public class TimerFactsTests
     public void DrainLengthensWidth(double drain, double expected) =>
         Assert.Equal(expected, new TimerFacts("U1", 1e6, 100e-6, 12, drain, double.PositiveInfinity).ClosedFormWidth, 2);
 
-    // 4 µA at 1 MΩ and 12 V: I·R ≥ V/3, the threshold is never reached (check-values §6).
+    // 4 µA at 1 MΩ and 12 V: I·R ≥ V/3, the threshold is never reached (the charging current left at
+    // the threshold is (V/3)/R = 4 µA).
     [Fact]
     public void FourMicroampsNeverEnds()
     {
@@ -28,7 +30,8 @@ public class TimerFactsTests
         Assert.True(t.MarginCurrent <= 1e-15);
     }
 
-    // Leakage resistance: never fires if R_L ≤ 2R; R_L 10 MΩ → 120.16 s (check-values §6, [CALC]).
+    // Leakage resistance: never fires if R_L ≤ 2R; R_L 10 MΩ → 120.16 s (Thevenin equivalent of R and R_L:
+    // V∞ = V·R_L/(R + R_L), τ = C·(R ∥ R_L), t = τ·ln(V∞/(V∞ − 2V/3)); computed from that formula).
     [Fact]
     public void LeakageResistance()
     {

@@ -32,7 +32,7 @@ public sealed class SimulateCommandTests
             Assert.True(exit == 0, error);
             Assert.Contains("rc-step: simulated", output, StringComparison.Ordinal);
             string[] lines = File.ReadAllLines(Path.Combine(dir, "trace.csv"));
-            Assert.Equal("time_s,in_V,out_V", lines[0]);
+            Assert.Equal("time_s,in_volts,out_volts", lines[0]);
             Assert.True(lines.Length > 30);
             double worst = 0;
             foreach (string line in lines.Skip(1))

@@ -42,9 +42,9 @@ public class DemoOutputTests
             // One millisecond-scale detail per switch-on (dusk and the headlight): the trigger dip is drawn.
             string[] details = svgs.Where(f => Path.GetFileName(f).StartsWith("detail-", StringComparison.Ordinal)).ToArray();
             Assert.Equal(2, details.Length);
-            Assert.Contains("V(trig) trigger pin", File.ReadAllText(details[0]), StringComparison.Ordinal);
+            Assert.Contains("trigger pin (node trig)", File.ReadAllText(details[0]), StringComparison.Ordinal);
             string nightSvg = File.ReadAllText(svgs.First(f => Path.GetFileName(f).StartsWith("night-", StringComparison.Ordinal)));
-            foreach (string series in (string[])["illuminance at sensor", "V(sense) sensor", "V(trig) trigger pin", "V(tc) timing capacitor", "lamp on"])
+            foreach (string series in (string[])["illuminance at sensor", "sensor (node sense)", "trigger pin (node trig)", "timing capacitor (node tc)", "lamp on"])
                 Assert.Contains(series, nightSvg, StringComparison.Ordinal);
             foreach (string png in Directory.GetFiles(dir, "*.png"))
                 Assert.Equal(new byte[] { 0x89, 0x50, 0x4E, 0x47 }, File.ReadAllBytes(png)[..4]); // PNG signature (ISO/IEC 15948)

@@ -12,7 +12,8 @@ public sealed class BjtTests
     [Fact]
     public void Collector_Current_At_0_65_V_Is_0_8205_mA()
     {
-        // check-values.md Q15: I_C(0.65 V) = 0.8205 mA for I_S 1e-14 A (V_BC ≪ 0, no Early effect).
+        // Ebers–Moll transport equation (Ebers & Moll, Proc. IRE 42, 1954) with V_BC ≪ 0 and no Early effect:
+        // I_C = I_S·e^(V_BE/V_T); I_S 1e-14 A, V_T 25.865 mV (27 °C) → I_C(0.65 V) = 0.8205 mA, computed from that formula.
         var q = new Bjt("Q1", "Q1", "c", "b", "e");
         var (ic, _) = q.Currents(0.65, -5, out _, out _, out _, out _);
         Assert.True(Math.Abs(ic - 0.8205e-3) <= 1e-3 * 0.8205e-3, $"I_C = {ic}");
@@ -38,7 +39,7 @@ public sealed class BjtTests
     public void Common_Emitter_Switch_Saturates_At_The_Transport_Model_Voltage()
     {
         // Common-emitter switch: V_CC 5 V, R_C 1 kΩ, base driven 0 → 5 V through R_B 10 kΩ.
-        // Reference: the Ebers–Moll transport equations (check-values.md §10) solved here independently by Newton
+        // Reference: the Ebers–Moll transport equations (Ebers & Moll 1954) solved here independently by Newton
         // on (V_BE, V_CE) with the same parameters.
         const double Vcc = 5, Rc = 1e3, Rb = 10e3, Is = 1e-14, Bf = 200, Br = 1;
         double vbe = 0.7, vce = 0.1;
@@ -65,11 +66,11 @@ public sealed class BjtTests
 
         var circuit = Circuit.FromDevices("ce-switch",
         [
-            new VoltageSource("VCC", "VCC", "vcc", "0", Waveform.Dc(Vcc)),
-            new VoltageSource("VIN", "VIN", "in", "0", Waveform.Pulse(0, 5, 1e-3, 1e-6, 1e-6, 2e-3, double.PositiveInfinity)),
+            new VoltageSource("VCC", "VCC", "vcc", "gnd", Waveform.Dc(Vcc)),
+            new VoltageSource("VIN", "VIN", "in", "gnd", Waveform.Pulse(0, 5, 1e-3, 1e-6, 1e-6, 2e-3, double.PositiveInfinity)),
             new Resistor("RB", "RB", "in", "b", Rb),
             new Resistor("RC", "RC", "vcc", "c", Rc),
-            new Bjt("Q1", "Q1", "c", "b", "0", betaF: Bf, betaR: Br),
+            new Bjt("Q1", "Q1", "c", "b", "gnd", betaF: Bf, betaR: Br),
         ]);
         var result = TransientSolver.Run(circuit, 5e-3, TransientOptions.Default with { Gmin = 0, MaxStep = 1e-4, SupplyRamp = 0 });
         Assert.True(result.Succeeded, result.Failure?.ToString());

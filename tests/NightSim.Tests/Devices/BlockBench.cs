@@ -40,9 +40,9 @@ internal static class BlockBench
         new(id, kind, pins, new PartParameters(numbers, texts, points: points));
 
     /// <summary>Ideal voltage source (DC) between node and ground.</summary>
-    public static VoltageSource Dc(string name, string node, double volts) => new(name, name, node, "0", Waveform.Dc(volts));
+    public static VoltageSource Dc(string name, string node, double volts) => new(name, name, node, "gnd", Waveform.Dc(volts));
 
     /// <summary>Piecewise-linear voltage source between node and ground.</summary>
     public static VoltageSource Pwl(string name, string node, params (double T, double V)[] points) =>
-        new(name, name, node, "0", Waveform.PiecewiseLinear(points.Select(p => (p.T, p.V)).ToList()));
+        new(name, name, node, "gnd", Waveform.PiecewiseLinear(points.Select(p => (p.T, p.V)).ToList()));
 }

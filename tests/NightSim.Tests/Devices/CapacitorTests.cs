@@ -9,7 +9,7 @@ public sealed class CapacitorTests
     {
         // Q = C·V (definition of capacitance): 100 µF at 12 V holds 1.2 mC.
         var h = new StampHarness("p");
-        var c = new Capacitor("C1", "C1", "p", "0", 100e-6);
+        var c = new Capacitor("C1", "C1", "p", "gnd", 100e-6);
         c.Setup(h);
         LoadContext ctx = h.Load(c, [12.0]);
         Assert.Equal(1.2e-3, ctx.Q[0], 12);
@@ -39,7 +39,7 @@ public sealed class CapacitorTests
     public void Leakage_Resistance_Is_A_Parallel_Conductance()
     {
         var h = new StampHarness("p");
-        var c = new Capacitor("C1", "C1", "p", "0", 1e-3, leakageResistance: 1e6);
+        var c = new Capacitor("C1", "C1", "p", "gnd", 1e-3, leakageResistance: 1e6);
         c.Setup(h);
         LoadContext ctx = h.Load(c, [16.0]);
         Assert.Equal(16e-6, ctx.J[0], 15);
@@ -49,10 +49,11 @@ public sealed class CapacitorTests
     [Fact]
     public void Leakage_Current_Is_Constant_At_Working_Voltage_And_Vanishes_At_Zero()
     {
-        // Electrolytic leakage limit 0.01·C·V for 1000 µF / 16 V = 160 µA (check-values Q9, [PRACTICE], IEC 60384-4 convention).
+        // Electrolytic leakage limit 0.01·C·V for 1000 µF / 16 V = 160 µA (the catalogue
+        // convention used with the IEC 60384-4 leakage test; common practice).
         double iLeak = 0.01 * 1000 * 16 * 1e-6;
         var h = new StampHarness("p");
-        var c = new Capacitor("C1", "C1", "p", "0", 1000e-6, leakageCurrent: iLeak);
+        var c = new Capacitor("C1", "C1", "p", "gnd", 1000e-6, leakageCurrent: iLeak);
         c.Setup(h);
         Assert.Equal(160e-6, h.Load(c, [16.0]).J[0], 12);
         Assert.Equal(160e-6 * Math.Tanh(1.0), h.Load(c, [0.05]).J[0], 12);

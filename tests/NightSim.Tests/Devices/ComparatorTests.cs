@@ -7,7 +7,7 @@ namespace NightSim.Tests.Devices;
 public sealed class ComparatorTests
 {
     private static Comparator Make(ComparatorSettings settings) =>
-        new("X1", "X1", "p", "m", "o", "v", "0", settings);
+        new("X1", "X1", "p", "m", "o", "v", "gnd", settings);
 
     [Fact]
     public void PushPull_Output_Stamps_Its_Jacobian_During_A_Transition()
@@ -112,8 +112,8 @@ public sealed class ComparatorTests
             BlockBench.Dc("VCC", "v", 12.0),
             BlockBench.Pwl("VP", "p", (0, 0), (10, 10), (20, 0)),
             BlockBench.Dc("VM", "m", 5.0),
-            new Comparator("X1", "X1", "p", "m", "o", "v", "0", new ComparatorSettings(Hysteresis: 0.2)),
-            new Resistor("RL", "RL", "o", "0", 10e3),
+            new Comparator("X1", "X1", "p", "m", "o", "v", "gnd", new ComparatorSettings(Hysteresis: 0.2)),
+            new Resistor("RL", "RL", "o", "gnd", 10e3),
         ], 20.0, TransientOptions.Default with { MaxStep = maxStep });
 
         List<DiscreteEvent> events = r.Events.Where(e => e.Device == "X1").ToList();
@@ -134,7 +134,7 @@ public sealed class ComparatorTests
             BlockBench.Dc("VCC", "v", 12.0),
             BlockBench.Pwl("VP", "p", (0, 0), (10, 10)),
             BlockBench.Dc("VM", "m", 5.0),
-            new Comparator("X1", "X1", "p", "m", "o", "v", "0", new ComparatorSettings(Hysteresis: 0.0 + 1e-3, Delay: 0.25)),
+            new Comparator("X1", "X1", "p", "m", "o", "v", "gnd", new ComparatorSettings(Hysteresis: 0.0 + 1e-3, Delay: 0.25)),
         ], 10.0);
         List<double> up = BlockBench.Times(r, "X1", "output", "high");
         Assert.Single(up);
@@ -144,7 +144,7 @@ public sealed class ComparatorTests
     [Fact]
     public void Kind_Reads_Parameters_With_Defaults()
     {
-        var pins = new Dictionary<string, string> { ["plus"] = "p", ["minus"] = "m", ["output"] = "o", ["vcc"] = "v", ["gnd"] = "0" };
+        var pins = new Dictionary<string, string> { ["plus"] = "p", ["minus"] = "m", ["output"] = "o", ["vcc"] = "v", ["gnd"] = "gnd" };
         var c = (Comparator)Assert.Single(Comparator.Kind.Create(BlockBench.Part("X1", "comparator", pins,
             new() { ["hysteresis"] = 0.05, ["delay"] = 2e-3 }, new() { ["outputType"] = "open-collector" })));
         Assert.Equal(0.05, c.Settings.Hysteresis);

@@ -21,7 +21,7 @@ public sealed class CurrentSourceTests
     {
         // Mains-like 50 Hz sine, 1 mA peak: quarter period 5 ms → peak.
         var h = new StampHarness("a");
-        var s = new CurrentSource("I1", "I1", "a", "0", Waveform.Sine(0, 1e-3, 50, 0, 0));
+        var s = new CurrentSource("I1", "I1", "a", "gnd", Waveform.Sine(0, 1e-3, 50, 0, 0));
         s.Setup(h);
         Assert.Equal(1e-3, h.Load(s, [0.0], time: 5e-3).J[0], 12);
     }

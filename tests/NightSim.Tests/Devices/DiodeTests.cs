@@ -14,15 +14,18 @@ public sealed class DiodeTests
     [Fact]
     public void Critical_Voltage_Is_0_7303_V_For_1e14_A()
     {
-        // numerics.md §6: V_crit = V_T ln(V_T/(√2 I_S)) = 0.7303 V for I_S 1e-14 A, N 1, 27 °C.
-        Assert.Equal(0.7303, new Diode("D1", "D1", "a", "0").CriticalVoltage, 4);
+        // Critical voltage of junction limiting (Vlach & Singhal, Computer Methods for Circuit Analysis and Design,
+        // 2nd ed., 1994; docs/numerics.md §6): V_crit = V_T ln(V_T/(√2 I_S)) = 0.7303 V for I_S 1e-14 A, N 1, 27 °C,
+        // computed from that formula.
+        Assert.Equal(0.7303, new Diode("D1", "D1", "a", "gnd").CriticalVoltage, 4);
     }
 
     [Fact]
     public void Forward_Voltage_At_1_mA_Is_0_6551_V()
     {
-        // check-values.md Q15 (textbook junction, I_S 1e-14 A, N 1): V(1 mA) = 0.6551 V ± 0.1 mV.
-        var d = new Diode("D1", "D1", "a", "0");
+        // Shockley diode equation (Shockley, Bell Syst. Tech. J. 28, 1949): V = N·V_T·ln(I/I_S + 1); I_S 1e-14 A, N 1,
+        // 27 °C → V(1 mA) = 0.6551 V (computed from that formula), ± 0.1 mV.
+        var d = new Diode("D1", "D1", "a", "gnd");
         double v = s_vt * Math.Log(1e-3 / 1e-14 + 1);
         Assert.Equal(1e-3, d.Current(v, out _), 12);
         Assert.InRange(v, 0.6550, 0.6552);
@@ -68,7 +71,9 @@ public sealed class DiodeTests
     [Fact]
     public void Diode_And_Resistor_Match_The_Lambert_W_Solution()
     {
-        // check-values.md Q16: 5 V, 1 kΩ, I_S 1e-14 A, N 1 → I = 4.3071 mA, V_D = 0.69289 V (Corless et al. 1996).
+        // Diode and resistor in series, solved exactly with the Lambert W function (Corless, Gonnet, Hare, Jeffrey &
+        // Knuth, "On the Lambert W function", Adv. Comput. Math. 5, 1996): 5 V, 1 kΩ, I_S 1e-14 A, N 1 → I = 4.3071 mA,
+        // V_D = 0.69289 V (computed from that closed form).
         const double V = 5, R = 1e3, Is = 1e-14;
         double n = s_vt;
         double exact = n / R * LambertW.W0(Is * R / n * Math.Exp((V + Is * R) / n)) - Is;
@@ -76,9 +81,9 @@ public sealed class DiodeTests
 
         var circuit = Circuit.FromDevices("d-r",
         [
-            new VoltageSource("V1", "V1", "in", "0", Waveform.Dc(V)),
+            new VoltageSource("V1", "V1", "in", "gnd", Waveform.Dc(V)),
             new Resistor("R1", "R1", "in", "a", R),
-            new Diode("D1", "D1", "a", "0", Is),
+            new Diode("D1", "D1", "a", "gnd", Is),
         ]);
         var options = TransientOptions.Default with { Gmin = 0 };
         Assert.True(TransientSolver.TrySolveOperatingPoint(circuit, options, out double[]? x));
@@ -87,9 +92,9 @@ public sealed class DiodeTests
 
         // The same by power-up transient, settled.
         var run = TransientSolver.Run(Circuit.FromDevices("d-r", [
-            new VoltageSource("V1", "V1", "in", "0", Waveform.Dc(V)),
+            new VoltageSource("V1", "V1", "in", "gnd", Waveform.Dc(V)),
             new Resistor("R1", "R1", "in", "a", R),
-            new Diode("D1", "D1", "a", "0", Is),
+            new Diode("D1", "D1", "a", "gnd", Is),
         ]), 0.01, TransientOptions.Verification with { Gmin = 0 });
         Assert.True(run.Succeeded, run.Failure?.ToString());
         double vd = run.Trace("a")!.Values[^1];
@@ -104,11 +109,11 @@ public sealed class DiodeTests
         const double Amp = 10, F = 50, R = 2e3, C = 470e-6;
         var circuit = Circuit.FromDevices("rectifier",
         [
-            new VoltageSource("V1", "V1", "ac", "0", Waveform.Sine(0, Amp, F, 0, 0)),
+            new VoltageSource("V1", "V1", "ac", "gnd", Waveform.Sine(0, Amp, F, 0, 0)),
             new Resistor("Rs", "Rs", "ac", "in", 1.0),
             new Diode("D1", "D1", "in", "out", 2.5e-9, 1.75, 0.6),
-            new Capacitor("C1", "C1", "out", "0", C),
-            new Resistor("RL", "RL", "out", "0", R),
+            new Capacitor("C1", "C1", "out", "gnd", C),
+            new Resistor("RL", "RL", "out", "gnd", R),
         ]);
         var result = TransientSolver.Run(circuit, 1.0, TransientOptions.Default with { MaxStep = 1e-4, SupplyRamp = 0 });
         Assert.True(result.Succeeded, result.Failure?.ToString());

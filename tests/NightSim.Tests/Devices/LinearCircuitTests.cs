@@ -14,7 +14,7 @@ public sealed class LinearCircuitTests
     {
         NetlistDefinition def = NetlistLoader.Load(Path.Combine(RepoPaths.Netlists, netlist));
         List<Device> devices = def.Parts.SelectMany(p => PartCatalog.Find(p.Kind)!.Create(p)).ToList();
-        string[] nodes = def.Parts.SelectMany(p => p.Pins.Values).Where(n => n != "0").Distinct().ToArray();
+        string[] nodes = def.Parts.SelectMany(p => p.Pins.Values).Where(n => n != "gnd").Distinct().ToArray();
         var harness = new StampHarness(nodes);
         foreach (Device d in devices) d.Setup(harness);
         foreach (Device d in devices) d.PowerUp();

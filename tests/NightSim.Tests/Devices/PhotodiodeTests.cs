@@ -8,7 +8,7 @@ public sealed class PhotodiodeTests
     private static Photodiode Make(double lux) =>
         new("D1", "D1", "a", "k", 0.04e-6, 2e-9, 50e-12, 1e-12, 1.0, new LightInput("sensor", 1.0, lux, null));
 
-    // I = responsivity·E + dark current, reverse-biased (photoconductive mode): 0.04 µA/lx (check-values §4, order of
+    // I = responsivity·E + dark current, reverse-biased (photoconductive mode): 0.04 µA/lx (from memory, order of
     // magnitude for 7.5 mm²) × 100 lx + 2 nA dark (from memory) = 4.002 µA flowing cathode → anode; the junction adds
     // only −I_S.
     [Fact]
@@ -26,7 +26,7 @@ public sealed class PhotodiodeTests
     }
 
     // Open circuit (no load): the photocurrent forward-biases the junction to V = n·V_T·ln(I_ph/I_S + 1)
-    // (Shockley diode equation, check-values §10). The dark current is reverse leakage and adds nothing forward.
+    // (Shockley diode equation, Bell Syst. Tech. J. 28, 1949). The dark current is reverse leakage and adds nothing forward.
     [Fact]
     public void Open_Circuit_Voltage_Follows_The_Junction_Law()
     {

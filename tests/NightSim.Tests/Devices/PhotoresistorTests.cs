@@ -8,9 +8,10 @@ namespace NightSim.Tests.Devices;
 public sealed class PhotoresistorTests
 {
     private static Photoresistor Make(double rise = 0, double decay = 0, double? lux = null, IReadOnlyList<(double, double)>? pwl = null, double gain = 1.0) =>
-        new("LDR1", "LDR1", "a", "0", 15e3, 0.7, 1e13, rise, decay, new LightInput("sensor", gain, lux, pwl));
+        new("LDR1", "LDR1", "a", "gnd", 15e3, 0.7, 1e13, rise, decay, new LightInput("sensor", gain, lux, pwl));
 
-    // CdS law R(E) = R10·(E/10 lx)^(−γ), R10 15 kΩ, γ 0.7 (check-values §4 table and Q14 [CALC], 1e-4 relative):
+    // CdS law R(E) = R10·(E/10 lx)^(−γ), R10 15 kΩ, γ 0.7 (textbook photoconductor power law, common practice;
+    // values computed from that formula, 1e-4 relative):
     // 1 lx 75.18 kΩ, 10 lx 15 kΩ, 100 lx 2.993 kΩ, 1000 lx 597 Ω.
     [Theory]
     [InlineData(1.0, 75.18e3)]
@@ -32,7 +33,7 @@ public sealed class PhotoresistorTests
     [Fact]
     public void Dark_Resistance_Is_In_Parallel()
     {
-        var ldr = new Photoresistor("LDR1", "LDR1", "a", "0", 15e3, 0.7, 1e6, 0, 0, new LightInput("sensor", 1, 0.0, null));
+        var ldr = new Photoresistor("LDR1", "LDR1", "a", "gnd", 15e3, 0.7, 1e6, 0, 0, new LightInput("sensor", 1, 0.0, null));
         Assert.Equal(1e6, ldr.SteadyResistance(0.0), 1e-6);
         Assert.Equal(1.0 / (1.0 / 75.18e3 + 1e-6), ldr.SteadyResistance(1.0), 10.0);
     }
@@ -50,7 +51,7 @@ public sealed class PhotoresistorTests
         Assert.Equal(double.PositiveInfinity, ldr.NextBreakpoint(20.0));
     }
 
-    // First-order lag on conductance (check-values §4: "first-order conductance lag", common practice): after a step
+    // First-order lag on conductance (common practice): after a step
     // from 100 lx to 1 lx the conductance decays as G∞ + (G0 − G∞)·e^(−t/τ_decay), the same whatever the accepted steps.
     [Fact]
     public void Conductance_Lags_With_Decay_Time_Independently_Of_Steps()
@@ -88,7 +89,7 @@ public sealed class PhotoresistorTests
         Assert.Equal(g1 + (g0 - g1) * Math.Exp(-1.0), ldr.Conductance(ctx), g1 * 1e-6);
     }
 
-    // Divider crossing (check-values §4 [CALC]): LDR (R10 15 kΩ, γ 0.7) on top, 10 kΩ below, 12 V; the bottom node falls
+    // Divider crossing (divider rule and the power law solved for E, by hand): LDR (R10 15 kΩ, γ 0.7) on top, 10 kΩ below, 12 V; the bottom node falls
     // through 4 V when R = 20 kΩ, i.e. at E* = 10·(15k/(10k·(12/4 − 1)))^(1/0.7) = 6.630 lx. With E = 100·e^(−t/300 s)
     // that happens at t* = 300·ln(100/6.630) = 814.1 s; a comparator at 4 V marks it.
     [Fact]
@@ -101,12 +102,12 @@ public sealed class PhotoresistorTests
             BlockBench.Dc("VCC", "v", 12.0),
             BlockBench.Dc("VTH", "th", 4.0),
             new Photoresistor("LDR1", "LDR1", "v", "s", 15e3, 0.7, 1e13, 0, 0, new LightInput("sensor", 1, null, pwl)),
-            new Resistor("RB", "RB", "s", "0", 10e3),
-            new Comparator("X1", "X1", "th", "s", "dark", "v", "0", new ComparatorSettings(Hysteresis: 1e-6)),
+            new Resistor("RB", "RB", "s", "gnd", 10e3),
+            new Comparator("X1", "X1", "th", "s", "dark", "v", "gnd", new ComparatorSettings(Hysteresis: 1e-6)),
         ], 1500.0);
         double t = Assert.Single(BlockBench.Times(r, "X1", "output", "high"));
-        double eStar = 10.0 * Math.Pow(15e3 / (10e3 * (12.0 / 4.0 - 1.0)), 1.0 / 0.7);
-        Assert.Equal(6.630, eStar, 1e-3);
+        // At the hand-computed E* the device's law gives the 20 kΩ that puts the divider on 4 V.
+        Assert.Equal(20e3, Photoresistor.LawResistance(6.630, 15e3, 0.7), 20e3 * 1e-3);
         // The piecewise-linear light between 10 s samples is slightly above the exponential (chord): allow 0.2 s.
         Assert.Equal(814.1, t, 0.2);
     }

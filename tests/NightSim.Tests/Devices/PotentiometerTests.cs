@@ -9,7 +9,7 @@ public sealed class PotentiometerTests
     {
         // Unloaded divider: v_w = V·(1 − p) with pin a at V, b at 0 (voltage divider rule, any circuit textbook).
         var h = new StampHarness("a", "w");
-        var pot = new Potentiometer("P1", "P1", "a", "w", "0", 100e3, 0.25);
+        var pot = new Potentiometer("P1", "P1", "a", "w", "gnd", 100e3, 0.25);
         pot.Setup(h);
         Assert.Equal(25e3, pot.ResistanceA, 9);
         Assert.Equal(75e3, pot.ResistanceB, 9);

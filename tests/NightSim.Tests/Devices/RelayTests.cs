@@ -6,12 +6,12 @@ namespace NightSim.Tests.Devices;
 
 public sealed class RelayTests
 {
-    // Generic 12 V relay class (check-values §8, common practice): 400 Ω, pull-in 9.0 V, drop-out 1.2 V, operate
+    // Generic 12 V relay class (common practice): 400 Ω, pull-in 9.0 V, drop-out 1.2 V, operate
     // ≤ 10 ms, release ≤ 5 ms; coil inductance 0.5 H from memory. These are the defaults of RelaySettings.
     private static readonly RelaySettings s_class = new();
 
     private static Relay Make(RelaySettings? settings = null, string? load = null) =>
-        new("K1", "K1", "c", "0",
+        new("K1", "K1", "c", "gnd",
         [
             new RelayContact("no", "com", "no", false),
             new RelayContact("nc", "com", "nc", true),
@@ -73,8 +73,8 @@ public sealed class RelayTests
         [
             BlockBench.Pwl("VC", "c", (0, 0), (12, 12), (24, 0)),
             BlockBench.Dc("VS", "com", 12.0),
-            new Resistor("RNO", "RNO", "no", "0", 1e3),
-            new Resistor("RNC", "RNC", "nc", "0", 1e3),
+            new Resistor("RNO", "RNO", "no", "gnd", 1e3),
+            new Resistor("RNC", "RNC", "nc", "gnd", 1e3),
             Make(load: "lamp"),
         ], 26.0);
         List<DiscreteEvent> coil = r.Events.Where(e => e.Signal == "coil").ToList();
@@ -93,7 +93,7 @@ public sealed class RelayTests
         Assert.Equal(12.0, r.Trace("nc")!.At(25.0), 1e-2);
     }
 
-    // A 12 V step closes the contacts within the class operate time of 10 ms (check-values §8, common practice):
+    // A 12 V step closes the contacts within the class operate time of 10 ms (common practice):
     // τ·ln(4) = 1.73 ms to reach 22.5 mA of 30 mA, plus 3 ms travel. Held at 1.3 V it holds; at 1.1 V it releases.
     [Fact]
     public void Step_Operates_Within_10ms_And_Holds_Until_Below_Drop_Out()
@@ -102,7 +102,7 @@ public sealed class RelayTests
         [
             BlockBench.Pwl("VC", "c", (0, 0), (0.01, 0), (0.01 + 1e-6, 12), (0.1, 12), (0.1 + 1e-3, 1.3), (0.2, 1.3), (0.2 + 1e-3, 1.1)),
             BlockBench.Dc("VS", "com", 12.0),
-            new Resistor("RNO", "RNO", "no", "0", 1e3),
+            new Resistor("RNO", "RNO", "no", "gnd", 1e3),
             Make(),
         ], 0.3);
         List<double> closed = BlockBench.Times(r, "K1", "contact no", "closed");
@@ -114,10 +114,11 @@ public sealed class RelayTests
         Assert.True(open[0] > 0.2, "1.3 V must hold the relay; 1.1 V releases it");
     }
 
-    // Flyback diode (check-values §8, common practice): when the driver opens, the coil current freewheels through the
+    // Flyback diode (common practice): when the driver opens, the coil current freewheels through the
     // diode, which clamps the coil's low side at V_CC + V_D instead of a kilovolt kick, and lengthens the release: with an
     // ideal 0.6–0.7 V diode the current falls from 30 mA to the 3 mA drop-out current in
-    // τ·ln((I0 + V_D/R)/(I_do + V_D/R)) = 2.38–2.43 ms, τ = L/R = 1.25 ms (R-L freewheel, check-values §8 [CALC]).
+    // τ·ln((I0 + V_D/R)/(I_do + V_D/R)) = 2.38–2.43 ms, τ = L/R = 1.25 ms (R-L freewheel with a constant diode drop, solved by
+    // hand).
     [Fact]
     public void Flyback_Diode_Clamps_The_Coil_And_Delays_Release()
     {
@@ -125,8 +126,8 @@ public sealed class RelayTests
         [
             BlockBench.Dc("VCC", "v", 12.0),
             new Relay("K1", "K1", "v", "low", [], s_class),
-            new Switch("S1", "S1", "low", "0", 0.01, 1e8, initiallyClosed: true, [(0.1, 0.0)]),
-            new Capacitor("CS", "CS", "low", "0", 100e-12),
+            new Switch("S1", "S1", "low", "gnd", 0.01, 1e8, initiallyClosed: true, [(0.1, 0.0)]),
+            new Capacitor("CS", "CS", "low", "gnd", 100e-12),
             new Diode("D1", "D1", "low", "v", 7e-9, 1.8, seriesResistance: 0.035),
         ], 0.2, TransientOptions.Default with { RecordNodes = ["low", "K1.i"] });
         double pulled = Assert.Single(BlockBench.Times(r, "K1", "coil", "pulled in"));
@@ -146,7 +147,7 @@ public sealed class RelayTests
         Assert.False(k.LoadOn);
         ISwitchedLoad load = k;
         Assert.Equal("lamp", load.LoadName);
-        Relay nc = new("K2", "K2", "c", "0", [], s_class with { LoadName = "lamp", LoadPower = 40, LoadNormallyClosed = true });
+        Relay nc = new("K2", "K2", "c", "gnd", [], s_class with { LoadName = "lamp", LoadPower = 40, LoadNormallyClosed = true });
         Assert.True(nc.LoadOn);
     }
 }

@@ -23,7 +23,7 @@ public sealed class ResistorTests
     public void Grounded_Resistor_Stamps_Only_Its_Node()
     {
         var h = new StampHarness("a");
-        var r = new Resistor("R1", "R1", "a", "0", 1000);
+        var r = new Resistor("R1", "R1", "a", "gnd", 1000);
         r.Setup(h);
         Assert.Equal(1, h.SlotCount);
         LoadContext ctx = h.Load(r, [5.0]);

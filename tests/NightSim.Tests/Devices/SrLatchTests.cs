@@ -10,7 +10,7 @@ public sealed class SrLatchTests
     private static (SrLatch Latch, StampHarness H, LoadContext Ctx) Make(bool resetDominant, bool withClear = false)
     {
         var h = new StampHarness("s", "r", "c", "q", "nq", "v");
-        var latch = new SrLatch("L1", "L1", "s", "r", withClear ? "c" : null, "q", "nq", "v", "0",
+        var latch = new SrLatch("L1", "L1", "s", "r", withClear ? "c" : null, "q", "nq", "v", "gnd",
             new SrLatchSettings(ResetDominant: resetDominant, Hysteresis: 0.1));
         latch.Setup(h);
         latch.PowerUp();
@@ -81,7 +81,7 @@ public sealed class SrLatchTests
             BlockBench.Dc("VCC", "v", 12.0),
             BlockBench.Pwl("VS", "s", (0, 0), (0.010, 0), (0.0101, 12), (0.020, 12), (0.0201, 0), (0.040, 0), (0.0401, 12)),
             BlockBench.Pwl("VR", "r", (0, 0), (0.030, 0), (0.0301, 12)),
-            new SrLatch("L1", "L1", "s", "r", null, "q", "nq", "v", "0", new SrLatchSettings()),
+            new SrLatch("L1", "L1", "s", "r", null, "q", "nq", "v", "gnd", new SrLatchSettings()),
         ], 0.05);
         List<DiscreteEvent> q = r.Events.Where(e => e.Device == "L1").ToList();
         Assert.Equal(2, q.Count);

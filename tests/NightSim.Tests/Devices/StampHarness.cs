@@ -17,7 +17,7 @@ internal sealed class StampHarness : SetupContext
 
     public IReadOnlyList<string> Labels => _unknowns;
 
-    public override int Node(string name) => name == "0" ? -1 : _unknowns.IndexOf(name) is var i and >= 0 ? i : throw new KeyNotFoundException(name);
+    public override int Node(string name) => name == "gnd" ? -1 : _unknowns.IndexOf(name) is var i and >= 0 ? i : throw new KeyNotFoundException(name);
 
     public override int Branch(string label)
     {

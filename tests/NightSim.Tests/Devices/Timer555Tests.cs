@@ -9,7 +9,7 @@ public sealed class Timer555Tests
 {
     private static readonly Dictionary<string, string> s_pins = new()
     {
-        ["vcc"] = "vcc", ["gnd"] = "0", ["trigger"] = "trig", ["threshold"] = "tc", ["discharge"] = "dis",
+        ["vcc"] = "vcc", ["gnd"] = "gnd", ["trigger"] = "trig", ["threshold"] = "tc", ["discharge"] = "dis",
         ["output"] = "out", ["reset"] = "rst",
     };
 
@@ -41,9 +41,9 @@ public sealed class Timer555Tests
             BlockBench.Dc("VR", "rst", vcc),
             TriggerPulse(vcc, t0, low),
             new Resistor("RT", "RT", "vcc", "tc", r),
-            new Capacitor("CT", "CT", "tc", "0", c),
+            new Capacitor("CT", "CT", "tc", "gnd", c),
             new Resistor("RD", "RD", "dis", "tc", 1e-3),
-            new Resistor("RL", "RL", "out", "0", 10e3),
+            new Resistor("RL", "RL", "out", "gnd", 10e3),
         };
         devices.AddRange(Timer(timer));
         return devices;
@@ -72,7 +72,7 @@ public sealed class Timer555Tests
         Assert.All(devices, d => Assert.Equal("U1", d.PartId));
         Assert.Contains("U1.control", devices.SelectMany(d => d.Nodes));   // control pin left out: private node
         Assert.Contains("U1.q", devices.SelectMany(d => d.Nodes));
-        // Bipolar defaults add the input currents (check-values §6, common practice): threshold 30 nA, trigger 0.5 µA.
+        // Bipolar defaults add the input currents (common practice for bipolar 555-class parts): threshold 30 nA, trigger 0.5 µA.
         List<Device> bipolar = Timer([], "bipolar").ToList();
         Assert.Equal(30e-9, bipolar.OfType<BiasCurrent>().Single(b => b.Name == "U1.threshold-current").Current, 15);
         Assert.Equal(0.5e-6, bipolar.OfType<BiasCurrent>().Single(b => b.Name == "U1.trigger-current").Current, 15);
@@ -90,7 +90,7 @@ public sealed class Timer555Tests
         Assert.Throws<KeyNotFoundException>(() => Timer555.EffectiveNumber(cmos, "nonsense"));
     }
 
-    // One-shot width t_w = ln 3 · R · C (check-values §6, textbook 555 formula; Q7), within 0.2 % for an ideal-parameter
+    // One-shot width t_w = ln 3 · R · C (the 555 monostable relation, Horowitz & Hill, The Art of Electronics, 3rd ed., ch. 7), within 0.2 % for an ideal-parameter
     // timer, R from 10 kΩ to 10 MΩ and C from 1 nF to 3300 µF, at default options. Width = latch set → latch reset.
     [Theory]
     [InlineData(10e3, 1e-9)]
@@ -110,26 +110,26 @@ public sealed class Timer555Tests
     }
 
     // Constant 1 µA drain on the timing capacitor, 12 V, 1 MΩ, 100 µF: t = RC·ln(A/(A − 2V/3)), A = V − I·R
-    // (check-values §6 / Q8: 129.93 s, ±0.1 %).
+    // (textbook RC charging with a constant drain; 129.93 s computed from that formula, ±0.1 %).
     [Fact]
     public void Constant_1uA_Drain_Stretches_The_Pulse_To_129_93_s()
     {
         List<Device> devices = OneShot(1e6, 100e-6, 12.0, Ideal(), 1.0, 1e-3);
-        devices.Add(new CurrentSource("IL", "IL", "tc", "0", Waveform.Dc(1e-6)));
+        devices.Add(new CurrentSource("IL", "IL", "tc", "gnd", Waveform.Dc(1e-6)));
         SimulationResult r = BlockBench.Run(devices, 200.0);
         var (set, reset) = Pulse(r);
         Assert.Equal(129.93, reset - set, 129.93 * 1e-3);
     }
 
-    // With a drain of 4 µA or more the capacitor never reaches 2/3 of 12 V through 1 MΩ (I·R ≥ V/3; check-values §6,
-    // Q8): the output stays high to the end of the run, the latch is never reset.
+    // With a drain of 4 µA or more the capacitor never reaches 2/3 of 12 V through 1 MΩ (I·R ≥ V/3: the charging current
+    // left at the threshold is (V/3)/R = 4 µA): the output stays high to the end of the run, the latch is never reset.
     [Theory]
     [InlineData(4e-6)]
     [InlineData(16e-6)]
     public void Drain_Of_4uA_Or_More_Never_Ends(double drain)
     {
         List<Device> devices = OneShot(1e6, 100e-6, 12.0, Ideal(), 1.0, 1e-3);
-        devices.Add(new CurrentSource("IL", "IL", "tc", "0", Waveform.Dc(drain)));
+        devices.Add(new CurrentSource("IL", "IL", "tc", "gnd", Waveform.Dc(drain)));
         SimulationResult r = BlockBench.Run(devices, 2000.0);
         Assert.Single(BlockBench.Times(r, "U1.latch", "q", "high"));
         Assert.Empty(BlockBench.Times(r, "U1.latch", "q", "low"));
@@ -138,7 +138,8 @@ public sealed class Timer555Tests
         Assert.True(r.Trace("tc")!.Max < 8.0, "the timing capacitor must stay below 2/3 of the supply");
     }
 
-    // Largest threshold current 0.25 µA at 15 V with 10 MΩ: t = RC·ln 5 = 1.6094·RC (check-values §6 [CALC]).
+    // Largest threshold current 0.25 µA at 15 V with 10 MΩ: t = RC·ln 5 = 1.6094·RC (constant drain: A = 15 − 2.5 = 12.5 V,
+    // t = RC·ln(12.5/(12.5 − 10)), computed by hand).
     [Fact]
     public void Threshold_Current_Of_0_25uA_At_15V_With_10MOhm_Gives_1_6094_RC()
     {
@@ -147,9 +148,9 @@ public sealed class Timer555Tests
         Assert.Equal(Math.Log(5.0) * 10.0, reset - set, 10.0 * Math.Log(5.0) * 2e-3);
     }
 
-    // Bipolar defaults (check-values §6, common practice): 30 nA into THRES and ≈ 16 nA of discharge leakage
+    // Bipolar defaults (common practice): 30 nA into THRES and ≈ 16 nA of discharge leakage
     // (500 MΩ) drain the timing capacitor: V∞ = (V/R − I)/(1/R + 1/R_L), τ = C·(R ∥ R_L), t = τ·ln(V∞/(V∞ − 2V/3))
-    // (check-values §6 drain and leakage-resistance formulas combined) = 110.55 s for 1 MΩ, 100 µF, 12 V.
+    // (textbook RC charging with a constant drain and a leakage resistance, combined by hand) = 110.55 s for 1 MΩ, 100 µF, 12 V.
     [Fact]
     public void Bipolar_Input_Current_And_Discharge_Leakage_Lengthen_The_Pulse()
     {
@@ -159,9 +160,9 @@ public sealed class Timer555Tests
             BlockBench.Dc("VR", "rst", 12.0),
             TriggerPulse(12.0, 2e-3, 1e-3),
             new Resistor("RT", "RT", "vcc", "tc", 1e6),
-            new Capacitor("CT", "CT", "tc", "0", 100e-6),
+            new Capacitor("CT", "CT", "tc", "gnd", 100e-6),
             new Resistor("RD", "RD", "dis", "tc", 1e-3),
-            new Resistor("RL", "RL", "out", "0", 10e3),
+            new Resistor("RL", "RL", "out", "gnd", 10e3),
         };
         devices.AddRange(Timer(new() { ["dischargeResistance"] = 0.01 }, "bipolar"));
         SimulationResult r = BlockBench.Run(devices, 200.0);
@@ -169,13 +170,12 @@ public sealed class Timer555Tests
         double g = 1.0 / 1e6 + 1.0 / 500e6;
         double vInf = (12.0 / 1e6 - 30e-9) / g;
         double expected = 100e-6 / g * Math.Log(vInf / (vInf - 8.0));
-        Assert.Equal(110.55, expected, 0.01);
         Assert.Equal(expected, reset - set, expected * 2e-3);
         Assert.True(reset - set > Math.Log(3.0) * 100.0 * 1.005, "the drain must lengthen the pulse beyond ln 3·RC");
     }
 
-    // Astable: f = 1.44/((Ra + 2Rb)·C) within 1 % (check-values §6, textbook); 1 kΩ / 10 kΩ / 100 nF → 685.7 Hz
-    // (t_H = ln2·(Ra + Rb)C = 0.7625 ms, t_L = ln2·Rb·C = 0.6931 ms, 687.0 Hz, duty 52.4 % [CALC]).
+    // Astable: f = 1.44/((Ra + 2Rb)·C) within 1 % (the 555 astable relation, Horowitz & Hill, The Art of Electronics, 3rd ed., ch. 7); 1 kΩ / 10 kΩ / 100 nF → 685.7 Hz
+    // (t_H = ln2·(Ra + Rb)C = 0.7625 ms, t_L = ln2·Rb·C = 0.6931 ms, 687.0 Hz, duty 52.4 %, computed from those).
     [Fact]
     public void Astable_Frequency_Is_1_44_Over_Ra_Plus_2Rb_C()
     {
@@ -184,8 +184,8 @@ public sealed class Timer555Tests
             BlockBench.Dc("VCC", "vcc", 12.0),
             new Resistor("RA", "RA", "vcc", "dis", 1e3),
             new Resistor("RB", "RB", "dis", "tc", 10e3),
-            new Capacitor("CT", "CT", "tc", "0", 100e-9),
-            new Resistor("RL", "RL", "out", "0", 10e3),
+            new Capacitor("CT", "CT", "tc", "gnd", 100e-9),
+            new Resistor("RL", "RL", "out", "gnd", 10e3),
         };
         var pins = new Dictionary<string, string>(s_pins) { ["trigger"] = "tc", ["reset"] = "vcc" };
         devices.AddRange(Timer(Ideal(), pins: pins));
@@ -200,7 +200,7 @@ public sealed class Timer555Tests
         Assert.Equal(Math.Log(2.0) * 10e3 * 100e-9, period - high, Math.Log(2.0) * 10e3 * 100e-9 * 1e-3);
     }
 
-    // Engine check: the one-shot of ln 3 · 1 MΩ · 100 µF = 109.861 s (check-values Q7) with default step control. The
+    // Engine check: the one-shot of ln 3 · 1 MΩ · 100 µF = 109.861 s (555 monostable relation) with default step control. The
     // threshold crossing lies inside a step of several seconds; the engine must locate it on re-taken steps rather than
     // fire at the end of the step (that gave 110.91 s, +1 %).
     [Fact]
@@ -212,8 +212,8 @@ public sealed class Timer555Tests
         Assert.True(Math.Abs((reset - set) / tw - 1.0) < 0.002, $"width {reset - set} s, expected {tw} s");
     }
 
-    // Trigger held low 300 s with t_w = 110 s: the output stays high until the trigger is released (check-values §6
-    // "Trigger held low" and test vector: output high 300 s).
+    // Trigger held low 300 s with t_w = 110 s: the output stays high until the trigger is released (555 logic,
+    // common practice: a trigger below V_CC/3 keeps the latch set whatever the threshold input).
     [Fact]
     public void Trigger_Held_Low_Keeps_The_Output_High_Until_Released()
     {
@@ -225,7 +225,7 @@ public sealed class Timer555Tests
         Assert.True(r.Trace("out")!.At(302.0) < 0.1);
     }
 
-    // Reset dominates (check-values §6 logic: RESET low → output low, discharge on): a reset pulse in the middle of the
+    // Reset dominates (555 logic, common practice: RESET low → output low, discharge on): a reset pulse in the middle of the
     // one-shot ends it at once, and a trigger while reset is held low does not set the output.
     [Fact]
     public void Reset_Dominates_Trigger_And_Ends_The_Pulse()
@@ -237,9 +237,9 @@ public sealed class Timer555Tests
             BlockBench.Pwl("VT", "trig", (0, 12), (1, 12), (1 + 1e-9, 0), (1.001, 0), (1.001 + 1e-9, 12),
                 (25, 12), (25 + 1e-9, 0), (26, 0), (26 + 1e-9, 12)),
             new Resistor("RT", "RT", "vcc", "tc", 1e6),
-            new Capacitor("CT", "CT", "tc", "0", 100e-6),
+            new Capacitor("CT", "CT", "tc", "gnd", 100e-6),
             new Resistor("RD", "RD", "dis", "tc", 1e-3),
-            new Resistor("RL", "RL", "out", "0", 10e3),
+            new Resistor("RL", "RL", "out", "gnd", 10e3),
         };
         devices.AddRange(Timer(Ideal()));
         SimulationResult r = BlockBench.Run(devices, 60.0);
@@ -251,7 +251,7 @@ public sealed class Timer555Tests
         Assert.True(r.Trace("tc")!.At(25.5) < 0.01, "discharge is on while reset is low");
     }
 
-    // Output levels (check-values §6 table, common practice): bipolar V_OH ≈ V_CC − 1.4…1.7 V; CMOS near rail to rail.
+    // Output levels (common practice): bipolar V_OH ≈ V_CC − 1.4…1.7 V; CMOS near rail to rail.
     // Supply current: bipolar 3–10 mA, CMOS 0.1–0.4 mA (common practice bands), at 15 V, output low and unloaded.
     [Theory]
     [InlineData("bipolar", 1e3, 10.3, 10.6, 3e-3, 10e-3)]
@@ -262,8 +262,8 @@ public sealed class Timer555Tests
         var high = new List<Device>
         {
             BlockBench.Dc("VCC", "vcc", 12.0), BlockBench.Dc("VR", "rst", 12.0), BlockBench.Dc("VT", "trig", 0.0),
-            new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", "0", 1e-6),
-            new Resistor("RD", "RD", "dis", "tc", 1e-3), new Resistor("RL", "RL", "out", "0", load),
+            new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", "gnd", 1e-6),
+            new Resistor("RD", "RD", "dis", "tc", 1e-3), new Resistor("RL", "RL", "out", "gnd", load),
         };
         high.AddRange(Timer([], variant));
         double voh = BlockBench.Run(high, 0.01).Trace("out")!.At(0.01);
@@ -273,7 +273,7 @@ public sealed class Timer555Tests
         var quiet = new List<Device>
         {
             BlockBench.Dc("VCC", "vcc", 15.0), BlockBench.Dc("VR", "rst", 15.0), BlockBench.Dc("VT", "trig", 15.0),
-            new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", "0", 1e-6),
+            new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", "gnd", 1e-6),
             new Resistor("RD", "RD", "dis", "tc", 1e-3),
         };
         quiet.AddRange(Timer([], variant));

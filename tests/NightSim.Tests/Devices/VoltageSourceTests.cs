@@ -8,7 +8,7 @@ public sealed class VoltageSourceTests
     public void Branch_Equation_Forces_The_Scaled_Source_Voltage()
     {
         var h = new StampHarness("p");
-        var v = new VoltageSource("V1", "V1", "p", "0", Waveform.Dc(12));
+        var v = new VoltageSource("V1", "V1", "p", "gnd", Waveform.Dc(12));
         v.Setup(h);
         var ctx = new LoadContext(h.Unknowns, h.SlotCount) { SourceScale = 0.5 };
         ctx.X[0] = 5.0;
@@ -24,7 +24,7 @@ public sealed class VoltageSourceTests
     [Fact]
     public void Reports_The_Waveform_Corners_As_Breakpoints()
     {
-        var v = new VoltageSource("V1", "V1", "p", "0", Waveform.PiecewiseLinear([(0, 0), (1e-3, 12), (2.0, 12)]));
+        var v = new VoltageSource("V1", "V1", "p", "gnd", Waveform.PiecewiseLinear([(0, 0), (1e-3, 12), (2.0, 12)]));
         Assert.Equal(1e-3, v.NextBreakpoint(0));
         Assert.Equal(2.0, v.NextBreakpoint(1e-3));
         Assert.Equal(double.PositiveInfinity, v.NextBreakpoint(2.0));

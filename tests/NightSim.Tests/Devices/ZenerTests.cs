@@ -26,10 +26,10 @@ public sealed class ZenerTests
         {
             var c = Circuit.FromDevices("zener-reg",
             [
-                new VoltageSource("V1", "V1", "in", "0", Waveform.Dc(vin)),
+                new VoltageSource("V1", "V1", "in", "gnd", Waveform.Dc(vin)),
                 new Resistor("Rs", "Rs", "in", "out", Rs),
-                Zener.Create("Z1", "Z1", "0", "out", vz: 5.1, izt: 20e-3, zzt: 10),
-                new Resistor("RL", "RL", "out", "0", RL),
+                Zener.Create("Z1", "Z1", "gnd", "out", vz: 5.1, izt: 20e-3, zzt: 10),
+                new Resistor("RL", "RL", "out", "gnd", RL),
             ]);
             Assert.True(TransientSolver.TrySolveOperatingPoint(c, TransientOptions.Verification, out double[]? x));
             double v = x![c.IndexOf("out")];

@@ -11,14 +11,14 @@ public sealed class NetlistLoaderTests
     [InlineData("bad-syntax.json", 5, 5, "$", null, "invalid JSON")]
     [InlineData("bad-unknown-kind.json", 5, 27, "$.parts[1].kind", "R1", "unknown kind \"resitor\". hint: did you mean \"resistor\"?")]
     [InlineData("bad-missing-pin.json", 6, 48, "$.parts[2].nodes", "R2", "missing pins: a resistor has 2 pins (a, b) but \"nodes\" lists 1")]
-    [InlineData("bad-extra-pin.json", 6, 88, "$.parts[2].pins.tap", "P1", "extra pin \"tap\"")]
-    [InlineData("bad-unknown-parameter.json", 6, 78, "$.parts[2].leakageCurent", "C1", "did you mean \"leakageCurrent\"?")]
-    [InlineData("bad-value.json", 5, 69, "$.parts[1].value", "R1", "\"meg\" is ambiguous. hint: use \"M\" for mega")]
-    [InlineData("bad-unit.json", 6, 70, "$.parts[2].value", "C1", "unit \"H\" does not fit. hint: expected F")]
+    [InlineData("bad-extra-pin.json", 6, 90, "$.parts[2].pins.tap", "P1", "extra pin \"tap\"")]
+    [InlineData("bad-unknown-parameter.json", 6, 80, "$.parts[2].leakageCurent", "C1", "did you mean \"leakageCurrent\"?")]
+    [InlineData("bad-value.json", 5, 71, "$.parts[1].value", "R1", "\"meg\" is ambiguous. hint: use \"M\" for mega")]
+    [InlineData("bad-unit.json", 6, 72, "$.parts[2].value", "C1", "unit \"H\" does not fit. hint: expected F")]
     [InlineData("bad-duplicate-id.json", 6, 13, "$.parts[2].id", "R1", "duplicate id \"R1\" (first used on line 5)")]
-    [InlineData("bad-out-of-range.json", 5, 118, "$.parts[1].position", "P1", "\"position\" = 1.5 is outside its physical range 0 … 1")]
+    [InlineData("bad-out-of-range.json", 5, 120, "$.parts[1].position", "P1", "\"position\" = 1.5 is outside its physical range 0 … 1")]
     [InlineData("bad-missing-parameter.json", 5, 5, "$.parts[1]", "R1", "missing required parameter \"value\" (Ω)")]
-    [InlineData("bad-exclusive.json", 4, 78, "$.parts[0].pwl", "V1", "\"dc\" and \"pwl\" exclude each other")]
+    [InlineData("bad-exclusive.json", 4, 86, "$.parts[0].points", "V1", "\"constant\" and \"points\" exclude each other")]
     [InlineData("bad-schedule-order.json", 5, 86, "$.parts[1].schedule[1][0]", "S1", "point 1 of \"schedule\" is at 1 h, not after 2 h")]
     [InlineData("bad-single-connection.json", 5, 56, "$.parts[1].nodes[1]", "R1", "node \"sense\" has a single connection. hint: did you mean \"sens\"?")]
     [InlineData("bad-no-ground.json", 3, 12, "$.parts", null, "no part connects to ground")]
@@ -62,11 +62,11 @@ public sealed class NetlistLoaderTests
               // comments and trailing commas are allowed
               "name": "t",
               "parts": [
-                { "id": "V1", "kind": "voltage-source", "nodes": ["a", "GND"], "dc": "12V", },
+                { "id": "V1", "kind": "voltage-source", "nodes": ["a", "GND"], "constant": "12V", },
                 { "id": "R1", "kind": "resistor", "nodes": ["a", "b"], "value": "4k7" },
                 { "id": "C1", "kind": "capacitor", "nodes": ["b", "Gnd"], "value": "3300uF", "leakageCurrent": "160u" },
                 { "id": "S1", "kind": "switch", "nodes": ["a", "b"], "schedule": [["2h", 1], [7800, 0]] },
-                { "id": "V2", "kind": "voltage-source", "nodes": ["c", "0"], "pulse": { "v2": 5, "delay": "1m" } },
+                { "id": "V2", "kind": "voltage-source", "nodes": ["c", "gnd"], "pulse": { "peak": 5, "start": "1m" } },
                 { "id": "R2", "kind": "resistor", "nodes": ["c", "0"], "value": 1000 },
               ],
             }
@@ -74,15 +74,16 @@ public sealed class NetlistLoaderTests
         NetlistDefinition def = NetlistLoader.LoadText(json, "t.json");
         Assert.Equal("t", def.Name);
         Assert.Equal("t.json", def.SourceFile);
-        Assert.Equal("0", def.Part("V1")!.Node("n"));
-        Assert.Equal("0", def.Part("C1")!.Node("n"));
+        Assert.Equal("gnd", def.Part("V1")!.Node("n"));
+        Assert.Equal("gnd", def.Part("C1")!.Node("n"));
+        Assert.Equal("gnd", def.Part("R2")!.Node("b"));                              // a bare "0" is taken as ground too
         Assert.Equal(4700, def.Part("R1")!.Parameters.Number("value"), 9);
         Assert.Equal(0.05, def.Part("R1")!.Parameters.Number("tolerance"), 12);      // default applied
         Assert.Equal(3.3e-3, def.Part("C1")!.Parameters.Number("value"), 12);
         Assert.Equal([(7200.0, 1.0), (7800.0, 0.0)], def.Part("S1")!.Parameters.Points("schedule"));
         PartParameters pulse = def.Part("V2")!.Parameters.Object("pulse")!;
-        Assert.Equal(1e-3, pulse.Number("delay"), 15);
-        Assert.Equal(0, pulse.Number("v1"));                                          // default inside a group
+        Assert.Equal(1e-3, pulse.Number("start"), 15);
+        Assert.Equal(0, pulse.Number("base"));                                        // default inside a group
         Assert.False(def.Part("V1")!.Parameters.Has("pulse"));
         Assert.Equal(6, def.Part("R1")!.Location!.Line);
         Assert.Equal(5, def.Part("R1")!.Location!.Column);
@@ -95,7 +96,7 @@ public sealed class NetlistLoaderTests
         List<Device> devices = def.Parts.SelectMany(p => PartCatalog.Find(p.Kind)!.Create(p)).ToList();
         Assert.Equal(["VCC", "R1", "R2", "P1", "C1"], devices.Select(d => d.Name));
         var pot = Assert.IsType<Potentiometer>(devices[3]);
-        Assert.Equal(["mid", "set", "0"], pot.Nodes);
+        Assert.Equal(["mid", "set", "gnd"], pot.Nodes);
         Assert.Equal(5e3, pot.ResistanceA, 9);
     }
 
@@ -104,8 +105,8 @@ public sealed class NetlistLoaderTests
     {
         const string json = """
             { "name": "t", "parts": [
-              { "id": "V1", "kind": "voltage-source", "nodes": ["a", "0"] },
-              { "id": "S1", "kind": "switch", "nodes": ["a", "0"], "onResistance": "10", "offResistance": "1" },
+              { "id": "V1", "kind": "voltage-source", "nodes": ["a", "gnd"] },
+              { "id": "S1", "kind": "switch", "nodes": ["a", "gnd"], "onResistance": "10", "offResistance": "1" },
             ] }
             """;
         NetlistLoadResult result = NetlistLoader.ReadText(json, "t.json");
@@ -120,24 +121,48 @@ public sealed class NetlistLoaderTests
     {
         const string json = """
             { "name": "t", "parts": [
-              { "id": "V1", "kind": "voltage-source", "nodes": ["a", "0"], "pulse": { "v2": 5, "period": "1m" } },
-              { "id": "V2", "kind": "voltage-source", "nodes": ["b", "0"], "pulse": { "v2": 5, "width": "2m", "period": "1m" } },
-              { "id": "R1", "kind": "resistor", "nodes": ["a", "0"], "value": "1k" },
-              { "id": "R2", "kind": "resistor", "nodes": ["b", "0"], "value": "1k" },
+              { "id": "V1", "kind": "voltage-source", "nodes": ["a", "gnd"], "pulse": { "peak": 5, "repeatEvery": "1m" } },
+              { "id": "V2", "kind": "voltage-source", "nodes": ["b", "gnd"], "pulse": { "peak": 5, "hold": "2m", "repeatEvery": "1m" } },
+              { "id": "R1", "kind": "resistor", "nodes": ["a", "gnd"], "value": "1k" },
+              { "id": "R2", "kind": "resistor", "nodes": ["b", "gnd"], "value": "1k" },
             ] }
             """;
         NetlistLoadResult result = NetlistLoader.ReadText(json, "t.json");
         Assert.Equal(["V1", "V2"], result.Errors.Select(e => e.PartId));
-        Assert.Contains("a repeating pulse needs \"width\"", result.Errors[0].Message, StringComparison.Ordinal);
-        Assert.Equal("pulse rise + width + fall (2.002 ms) exceeds its period (1 ms)", result.Errors[1].Message);
-        Assert.Equal("shorten \"width\" or lengthen \"period\"", result.Errors[1].Hint);
+        Assert.Contains("a repeating pulse needs \"hold\"", result.Errors[0].Message, StringComparison.Ordinal);
+        Assert.Equal("pulse riseTime + hold + fallTime (2.002 ms) exceeds repeatEvery (1 ms)", result.Errors[1].Message);
+        Assert.Equal("shorten \"hold\" or lengthen \"repeatEvery\"", result.Errors[1].Hint);
+    }
+
+    [Fact]
+    public void A_Misspelt_Parameter_Gets_The_Nearest_Name_And_A_Retired_Short_Name_Its_Successor()
+    {
+        const string json = """
+            { "name": "t", "parts": [
+              { "id": "V1", "kind": "voltage-source", "nodes": ["vcc", "gnd"], "constant": 5 },
+              { "id": "R1", "kind": "resistor", "nodes": ["vcc", "b"], "value": "100k" },
+              { "id": "Q1", "kind": "npn", "pins": { "c": "vcc", "b": "b", "e": "e" }, "forwardGian": 200 },
+              { "id": "Q2", "kind": "npn", "pins": { "c": "vcc", "b": "b", "e": "e" }, "bf": 200 },
+              { "id": "D1", "kind": "diode", "nodes": ["e", "gnd"], "is": "2n" },
+              { "id": "V2", "kind": "voltage-source", "nodes": ["p", "gnd"], "pulse": { "peak": 5, "width": "1m" } },
+              { "id": "R2", "kind": "resistor", "nodes": ["p", "gnd"], "value": "1k" },
+            ] }
+            """;
+        NetlistLoadResult result = NetlistLoader.ReadText(json, "t.json");
+        Assert.Equal(["Q1", "Q2", "D1", "V2"], result.Errors.Select(e => e.PartId));
+        Assert.StartsWith("unknown parameter \"forwardGian\"", result.Errors[0].Message, StringComparison.Ordinal);
+        Assert.StartsWith("did you mean \"forwardGain\"?", result.Errors[0].Hint, StringComparison.Ordinal);
+        Assert.StartsWith("unknown parameter \"bf\"", result.Errors[1].Message, StringComparison.Ordinal);
+        Assert.StartsWith("this parameter is now called \"forwardGain\".", result.Errors[1].Hint, StringComparison.Ordinal);
+        Assert.StartsWith("this parameter is now called \"saturationCurrent\".", result.Errors[2].Hint, StringComparison.Ordinal);
+        Assert.StartsWith("this parameter is now called \"hold\".", result.Errors[3].Hint, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Columns_Count_Characters_Not_Bytes()
     {
         // "µ" and "Ω" take two bytes each in UTF-8; the column must still point at the value.
-        const string json = "{ \"name\": \"µΩ\", \"parts\": [ { \"id\": \"R1\", \"kind\": \"resistor\", \"nodes\": [\"a\", \"0\"], \"value\": \"1q\" } ] }";
+        const string json = "{ \"name\": \"µΩ\", \"parts\": [ { \"id\": \"R1\", \"kind\": \"resistor\", \"nodes\": [\"a\", \"gnd\"], \"value\": \"1q\" } ] }";
         NetlistError e = NetlistLoader.ReadText(json, "t.json").Errors.Single(x => x.JsonPath == "$.parts[0].value");
         Assert.Equal(1, e.Line);
         Assert.Equal(json.IndexOf("\"1q\"", StringComparison.Ordinal) + 1, e.Column);
@@ -148,10 +173,10 @@ public sealed class NetlistLoaderTests
     {
         const string json = """
             { "name": "t", "parts": [
-              { "id": "V1", "kind": "voltage-source", "nodes": ["vcc", "0"], "dc": 5 },
-              { "id": "R1", "kind": "resistor", "nodes": ["vcc", "0"], "value": "1k" },
-              { "id": "R2", "kind": "resistor", "nodes": ["Vcc", "0"], "value": "1k" },
-              { "id": "R3", "kind": "resistor", "nodes": ["Vcc", "0"], "value": "1k" },
+              { "id": "V1", "kind": "voltage-source", "nodes": ["vcc", "gnd"], "constant": 5 },
+              { "id": "R1", "kind": "resistor", "nodes": ["vcc", "gnd"], "value": "1k" },
+              { "id": "R2", "kind": "resistor", "nodes": ["Vcc", "gnd"], "value": "1k" },
+              { "id": "R3", "kind": "resistor", "nodes": ["Vcc", "gnd"], "value": "1k" },
             ] }
             """;
         NetlistLoadResult result = NetlistLoader.ReadText(json, "t.json");

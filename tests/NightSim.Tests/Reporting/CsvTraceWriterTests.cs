@@ -44,7 +44,7 @@ public sealed class CsvTraceWriterTests
         TraceTable t = DemoReportData.Trace();
         string[] lines = Render(t).Split('\n', StringSplitOptions.RemoveEmptyEntries);
         Assert.Equal(t.Times.Length + 1, lines.Length);
-        Assert.Equal("time_s,clock,illuminance lx,V(sens) V,V(tc) V,relay 0/1", lines[0]);
+        Assert.Equal("time_s,clock,illuminance_lux,sens_volts,tc_volts,load_on", lines[0]);
         for (int r = 0; r < t.Times.Length; r += 97)
         {
             string[] cells = lines[r + 1].Split(',');

@@ -93,9 +93,9 @@ internal static class DemoReportData
             Series =
             [
                 new PlotSeries("illuminance at sensor", "lx", PlotPanel.Light, t, Map(t, Lux)),
-                new PlotSeries("V(sens) sensor node", "V", PlotPanel.Voltages, t, Map(t, Sensor)),
-                new PlotSeries("V(trig) trigger pin", "V", PlotPanel.Voltages, t, Map(t, Trigger)),
-                new PlotSeries("V(tc) timing capacitor", "V", PlotPanel.Voltages, t, Map(t, Timing)),
+                new PlotSeries("sensor (node sens)", "V", PlotPanel.Voltages, t, Map(t, Sensor)),
+                new PlotSeries("trigger pin (node trig)", "V", PlotPanel.Voltages, t, Map(t, Trigger)),
+                new PlotSeries("timing capacitor (node tc)", "V", PlotPanel.Voltages, t, Map(t, Timing)),
                 new PlotSeries("1/3 supply", "V", PlotPanel.Voltages, [0, 86400], [Supply / 3, Supply / 3], Dashed: true),
                 new PlotSeries("2/3 supply", "V", PlotPanel.Voltages, [0, 86400], [Supply * 2 / 3, Supply * 2 / 3], Dashed: true),
                 new PlotSeries("relay contact", "", PlotPanel.States, t, Map(t, x => RelayOn(x) ? 1 : 0)),
@@ -125,7 +125,7 @@ internal static class DemoReportData
     {
         double[] t = Times();
         return new TraceTable(Origin, null, t,
-            ["illuminance lx", "V(sens) V", "V(tc) V", "relay 0/1"],
+            ["illuminance_lux", "sens_volts", "tc_volts", "load_on"],
             [Map(t, Lux), Map(t, Sensor), Map(t, Timing), Map(t, x => RelayOn(x) ? 1 : 0)]);
     }
 

@@ -93,7 +93,7 @@ public sealed class HtmlReportWriterTests
         Assert.Equal(2, svgs.Count);
         Assert.All(svgs, s => Assert.Equal("0 0 1200 780", (string?)s.Attribute("viewBox")));
         Assert.All(svgs, s => Assert.True(s.Descendants(s_svg + "polyline").Count() > 20));
-        Assert.Contains("V(tc) timing capacitor", svgs[0].Value, StringComparison.Ordinal);
+        Assert.Contains("timing capacitor (node tc)", svgs[0].Value, StringComparison.Ordinal);
         List<string> ids = d.Descendants().Select(e => (string?)e.Attribute("id")).OfType<string>().ToList();
         Assert.Equal(ids.Count, ids.Distinct(StringComparer.Ordinal).Count());
     }

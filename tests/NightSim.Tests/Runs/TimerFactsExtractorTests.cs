@@ -11,19 +11,19 @@ public class TimerFactsExtractorTests
         new(id, kind, new Dictionary<string, string> { [PartCatalog.Find(kind)!.Pins[0]] = a, [PartCatalog.Find(kind)!.Pins[1]] = b },
             new PartParameters(p.ToDictionary(x => x.Name, x => x.Value)));
 
-    // The worked case of check-values §7: 1 MΩ from 12 V, 100 µF with 1 µA leakage → 129.93 s ([CALC], textbook
+    // Worked case: 1 MΩ from 12 V, 100 µF with 1 µA leakage → 129.93 s (computed from textbook
     // RC charging with a constant drain).
     [Fact]
     public void ReadsTheTimingNetworkAndLeakage()
     {
         var timer = new PartDefinition("U1", "timer-555",
-            new Dictionary<string, string> { ["vcc"] = "vcc", ["gnd"] = "0", ["threshold"] = "tc", ["discharge"] = "tc", ["trigger"] = "trig", ["output"] = "out", ["reset"] = "vcc" },
+            new Dictionary<string, string> { ["vcc"] = "vcc", ["gnd"] = "gnd", ["threshold"] = "tc", ["discharge"] = "tc", ["trigger"] = "trig", ["output"] = "out", ["reset"] = "vcc" },
             PartParameters.Empty);
         var net = new NetlistDefinition("t", null,
         [
-            Two("V1", "voltage-source", "vcc", "0", ("dc", 12.0)),
+            Two("V1", "voltage-source", "vcc", "gnd", ("constant", 12.0)),
             Two("RT", "resistor", "vcc", "tc", ("value", 1e6)),
-            Two("CT", "capacitor", "tc", "0", ("value", 100e-6), ("leakageCurrent", 1e-6)),
+            Two("CT", "capacitor", "tc", "gnd", ("value", 100e-6), ("leakageCurrent", 1e-6)),
             timer,
         ]);
         TimerFacts f = Assert.Single(TimerFactsExtractor.Extract(net, n => TimerFactsExtractor.DcSupply(net, n)));

@@ -5,7 +5,8 @@ namespace NightSim.Tests.Sky;
 public sealed class IlluminanceModelTests
 {
     [Theory]
-    // check-values §2 table: USNO Circular 171 model, Sun only, sky 1 [CALC from the published formula]; ±0.5 %.
+    // USNO Circular No. 171 (Janiczek & DeYoung, 1987) illuminance model, Sun only, sky 1: values computed from the
+    // published formula, not read from the circular's tables; ±0.5 %.
     [InlineData(60, 103000)]
     [InlineData(30, 51320)]
     [InlineData(10, 11230)]
@@ -27,7 +28,7 @@ public sealed class IlluminanceModelTests
     [Fact]
     public void NightFloor_AddsHalfMillilux()
     {
-        // check-values §2: E(−12°) = 4.87e-3 lx with the 0.0005 lx floor.
+        // Same model and computation: E(−12°) = 4.87e-3 lx including the circular's 0.0005 lx night-sky term.
         Assert.InRange(IlluminanceModel.SkyLux(-12), 4.87e-3 * 0.99, 4.87e-3 * 1.01);
         Assert.Equal(0.0005, IlluminanceModel.SkyLux(-40), 6);
     }
@@ -35,7 +36,7 @@ public sealed class IlluminanceModelTests
     [Fact]
     public void EndOfCivilTwilight_InsidePublishedBand()
     {
-        // AMS Glossary of Meteorology: end of civil twilight 2–3.5 lx (check-values Q4).
+        // AMS Glossary of Meteorology: end of civil twilight 2–3.5 lx (American Meteorological Society).
         double e = IlluminanceModel.SkyLux(-6.0);
         Assert.InRange(e, 2.0, 3.5);
     }
@@ -51,7 +52,7 @@ public sealed class IlluminanceModelTests
     [Fact]
     public void RefractionSwitch_StepNearMinusFiveSixths_NotAssertedAtTheSwitch()
     {
-        // check-values §2 / pitfall 9: E(−0.84°) = 435.7 lx; just above −5/6° the model is ≈ 662 lx (≈ 34 % step).
+        // USNO Circular No. 171 model, computed from its formula (its refraction term starts at −5/6°): E(−0.84°) = 435.7 lx; just above −5/6° the model is ≈ 662 lx (≈ 34 % step).
         Assert.InRange(IlluminanceModel.SunLux(-0.84), 435.7 * 0.99, 435.7 * 1.01);
         double above = IlluminanceModel.SunLux(-0.833);
         Assert.InRange(above, 662 * 0.98, 662 * 1.02);
@@ -71,7 +72,8 @@ public sealed class IlluminanceModelTests
     }
 
     [Theory]
-    // check-values §2 (CALC): elevation where model + floor reaches a level; ±0.05°.
+    // Elevation where the USNO Circular No. 171 model plus its 0.0005 lx term reaches a level, solved numerically from
+    // the published formula (computed); ±0.05°.
     [InlineData(10.0, 1.0, -4.86)]
     [InlineData(10.0, 2.0, -4.20)]
     [InlineData(10.0, 3.0, -3.80)]

@@ -27,7 +27,7 @@ public sealed class LightProfileTests
     [Fact]
     public void FullSyntheticNight_SensorFollowsTheSky()
     {
-        // A plain clear night: sensor lux = exposure × (USNO model + 0.0005 lx floor) (USNO Circular 171, check-values §2).
+        // A plain clear night: sensor lux = exposure × (USNO model + 0.0005 lx floor) (USNO Circular No. 171).
         LightScenario s = Parse("""{ "site": { "latitude": 52.1, "longitude": 8.6, "timeZone": "Europe/Berlin" }, "start": "2026-11-20", "sensor": { "exposure": 0.3 } }""");
         LightProfile p = s.CreateProfile();
         int ch = p.ChannelIndex("sensor");
@@ -113,7 +113,7 @@ public sealed class LightProfileTests
         Assert.NotEmpty(flashes);
         foreach (LightningFlash f in flashes)
         {
-            Assert.InRange(f.Strokes.Count, 3, 5); // CIGRE TB 549: 3–5 strokes typical (check-values §5)
+            Assert.InRange(f.Strokes.Count, 3, 5); // 3–5 strokes typical: CIGRE Technical Brochure 549 (2013)
             foreach (LightningStroke s in f.Strokes)
             {
                 Assert.Equal(s.Start, p.NextBreakpoint(s.Start - 1e-7), 9);
@@ -240,7 +240,7 @@ public sealed class LightProfileTests
             double exact = IlluminanceModel.SkyLux(p.SunElevation(t));
             Assert.InRange(p.SkyLux(t), exact * (1 - 1e-3), exact * (1 + 1e-3));
         }
-        // USNO Circular 171 model step at −5/6° (check-values pitfall 9): a ≈ 34 % jump across the sunset breakpoint.
+        // USNO Circular 171 model step at −5/6° (its refraction term starts there): a ≈ 34 % jump across the sunset breakpoint.
         double sunset = (p.SolarEvents[0].Sunset!.Value - p.Origin).TotalSeconds;
         double bp = p.NextBreakpoint(sunset - 60);
         Assert.True(p.SkyLux(bp - 0.01) / p.SkyLux(bp + 0.01) > 1.3);

@@ -30,7 +30,7 @@ public sealed class MoonPositionTests
     [Fact]
     public void Moonlight_InPublishedBands()
     {
-        // check-values §2: full Moon high 0.1–0.3 lx (Hollan 2001, secondary); quarter Moon ≈ 0.01 lx (illuminance compilation).
+        // Full Moon high 0.1–0.3 lx; quarter Moon ≈ 0.01 lx (common practice: widely quoted orders of magnitude, wide bands).
         Assert.InRange(IlluminanceModel.MoonLux(45, 180), 0.1, 0.3);
         Assert.InRange(IlluminanceModel.MoonLux(45, 90), 0.003, 0.03);
         Assert.True(IlluminanceModel.MoonLux(-10, 180) < 1e-3);

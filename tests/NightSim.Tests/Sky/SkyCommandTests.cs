@@ -27,7 +27,7 @@ public sealed class SkyCommandTests
         string[] keys = ["date", "sunset", "sunrise", "civilDusk", "civilDawn", "nauticalDusk", "nauticalDawn", "astronomicalDusk", "astronomicalDawn", "luxCrossings"];
         Assert.Equal(keys.Order(), night.EnumerateObject().Select(p => p.Name).Order());
         Assert.Equal("2024-06-21", night.GetProperty("date").GetString());
-        // check-values TV5: London 2024-06-21 sunset 20:21:40 UT = 21:21:40 BST; no astronomical dusk (null, never NaN).
+        // Computed vector (NOAA solar equations after Meeus, as in TwilightTests): London 2024-06-21 sunset 20:21:40 UT = 21:21:40 BST; no astronomical dusk (null, never NaN).
         var sunset = DateTimeOffset.Parse(night.GetProperty("sunset").GetString()!, System.Globalization.CultureInfo.InvariantCulture);
         Assert.Equal(TimeSpan.FromHours(1), sunset.Offset);
         Assert.InRange((sunset - new DateTimeOffset(2024, 6, 21, 20, 21, 40, TimeSpan.Zero)).TotalSeconds, -60, 60);
@@ -35,7 +35,8 @@ public sealed class SkyCommandTests
         Assert.Matches(@"^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d[+-]\d\d:\d\d$", night.GetProperty("sunrise").GetString()!);
         JsonElement crossings = night.GetProperty("luxCrossings");
         Assert.Equal([100.0, 10.0, 1.0], crossings.EnumerateArray().Select(c => c.GetProperty("lux").GetDouble()).ToArray());
-        // check-values §2: London 2024-06-21 sunset → 10 lx +36.5 min.
+        // Computed with the same solar equations and the USNO Circular No. 171 model plus its 0.0005 lx term:
+        // London 2024-06-21 sunset → 10 lx +36.5 min.
         var tenLux = DateTimeOffset.Parse(crossings[1].GetProperty("dusk").GetString()!, System.Globalization.CultureInfo.InvariantCulture);
         Assert.InRange((tenLux - sunset).TotalMinutes, 36.0, 37.0);
     }

@@ -7,7 +7,7 @@ public sealed class SunPositionTests
     [Fact]
     public void MeeusExample25a_DeclinationAndRightAscension()
     {
-        // Meeus, Astronomical Algorithms 2nd ed., Example 25.a (check-values TV1): JDE 2448908.5.
+        // Meeus, Astronomical Algorithms 2nd ed., Example 25.a: JDE 2448908.5.
         SolarCoordinates c = SunPosition.Coordinates(2448908.5);
         Assert.InRange(c.JulianCenturies, -0.072183436 - 1e-9, -0.072183436 + 1e-9);
         Assert.InRange(c.MeanLongitude, 201.80720 - 1e-4, 201.80720 + 1e-4);
@@ -18,12 +18,13 @@ public sealed class SunPositionTests
         Assert.InRange(c.Obliquity, 23.43999 - 1e-4, 23.43999 + 1e-4);
         Assert.InRange(c.Declination, -7.78507 - 1e-4, -7.78507 + 1e-4);
         Assert.InRange(c.RightAscension, 198.38083 - 1e-4, 198.38083 + 1e-4);
-        // Equation of time at that instant, 13.7109 min (check-values TV1, CALC from the same equations).
+        // Equation of time at that instant, 13.7109 min (computed from the equation-of-time series of Meeus
+        // ch. 28 with the same quantities).
         Assert.InRange(c.EquationOfTime, 13.7109 - 0.001, 13.7109 + 0.001);
     }
 
     [Theory]
-    // Meeus ch. 7 (check-values TV4).
+    // Meeus, Astronomical Algorithms, 2nd ed., ch. 7 (Julian Day examples).
     [InlineData(2000, 1, 1.5, 2451545.0)]
     [InlineData(1987, 1, 27.0, 2446822.5)]
     [InlineData(1988, 6, 19.5, 2447332.0)]
@@ -45,7 +46,7 @@ public sealed class SunPositionTests
     [Fact]
     public void SpaWorkedExample_ElevationAndAzimuth()
     {
-        // Reda & Andreas, Solar Position Algorithm, NREL/TP-560-34302, worked example (check-values TV2):
+        // Reda & Andreas, Solar Position Algorithm, NREL/TP-560-34302, worked example:
         // 2003-10-17 12:30:30 local, UTC−7, 39.742476 N, 105.1786 W → elevation 39.872046° (no refraction), azimuth 194.340241°.
         var t = new DateTimeOffset(2003, 10, 17, 12, 30, 30, TimeSpan.FromHours(-7));
         HorizontalPosition p = SunPosition.Horizontal(t, 39.742476, -105.1786);

@@ -15,7 +15,7 @@ public sealed class TwilightTests
     }
 
     [Theory]
-    // NREL SPA report, Table A2.1, 0° E, UT (check-values TV3), ±60 s. Sunrise of a date is the morning of the previous night.
+    // Reda & Andreas, Solar Position Algorithm, NREL/TP-560-34302, Table A2.1, 0° E, UT, ±60 s. Sunrise of a date is the morning of the previous night.
     [InlineData(35.0, "1994-01-02", "16:59:55.9", "07:08:12.8")]
     [InlineData(-35.0, "1996-07-05", "17:01:04.5", "07:08:15.4")]
     [InlineData(-35.0, "2004-12-04", "19:02:02.5", "04:38:57.1")]
@@ -30,7 +30,13 @@ public sealed class TwilightTests
     [Fact]
     public void Golden_2003_10_17_AllEvents()
     {
-        // check-values TV5 (CALC, ±60 s against almanacs), zone UTC−7: dusk side of 2003-10-17.
+        // Computed vectors, not read from an almanac: the NOAA solar calculation equations (after Meeus, Astronomical
+        // Algorithms, 2nd ed., ch. 25 and 28), iterated to the instant the Sun's centre reaches −0.8333° (rise and set, USNO
+        // Almanac for Computers, 1990), −6°, −12° and −18° (civil, nautical, astronomical twilight: AMS Glossary of
+        // Meteorology). They pin the same published equations the code implements; ±60 s is the ≈ 1 min rise/set accuracy
+        // NOAA states for those equations.
+        // Sunrise 06:12:43 is also the published sunrise of the SPA worked example (Reda & Andreas, NREL/TP-560-34302).
+        // Zone UTC−7: dusk side of 2003-10-17.
         var site = new Site("Golden", 39.742476, -105.1786, TimeZoneInfo.CreateCustomTimeZone("UTC-7", TimeSpan.FromHours(-7), "UTC-7", "UTC-7"));
         SolarEvents n = Twilight.ForNight(site, new DateOnly(2003, 10, 17));
         Near("2003-10-17T17:18:51-07:00", n.Sunset);
@@ -46,7 +52,12 @@ public sealed class TwilightTests
     }
 
     [Theory]
-    // check-values TV5, London 51.5074 N 0.1278 W, UT.
+    // Computed vectors, not read from an almanac: the NOAA solar calculation equations (after Meeus, Astronomical
+    // Algorithms, 2nd ed., ch. 25 and 28), iterated to the instant the Sun's centre reaches −0.8333° (rise and set, USNO
+    // Almanac for Computers, 1990), −6°, −12° and −18° (civil, nautical, astronomical twilight: AMS Glossary of
+    // Meteorology). They pin the same published equations the code implements; ±60 s is the ≈ 1 min rise/set accuracy
+    // NOAA states for those equations.
+    // London 51.5074 N 0.1278 W, UT.
     [InlineData("2024-12-21", "15:53:40", "16:34:00", "17:17:13", "17:58:02", "05:59:38", "06:40:27", "07:23:40", "08:04:00")]
     [InlineData("2024-03-20", "18:14:20", "18:47:43", "19:27:13", "20:08:24", "04:08:44", "04:49:41", "05:29:00", "06:02:17")]
     public void London_TwilightVectors(string date, string set, string cd, string nd, string ad, string aw, string nw, string cw, string rise)
@@ -68,7 +79,7 @@ public sealed class TwilightTests
     [Fact]
     public void London_Midsummer_AstronomicalTwilightNeverEnds()
     {
-        // check-values TV5: London 2024-06-21 has no astronomical dusk or dawn ("none", never NaN).
+        // Computed as above: London 2024-06-21 never reaches −18°, so it has no astronomical dusk or dawn ("none", never NaN).
         var site = new Site("London", 51.5074, -0.1278, TimeZoneInfo.Utc);
         SolarEvents n = Twilight.ForNight(site, new DateOnly(2024, 6, 21));
         Near("2024-06-21T20:21:40Z", n.Sunset);
@@ -145,7 +156,8 @@ public sealed class TwilightTests
     }
 
     [Theory]
-    // check-values §2 "Steepness of dusk" (CALC): sunset → 10 lx (clear, USNO model + 0.0005 lx floor), ±0.5 min.
+    // Computed vectors: minutes from sunset until the clear-sky USNO Circular No. 171 model plus its 0.0005 lx term falls
+    // to 10 lx, the Sun from the NOAA solar equations after Meeus (as above); ±0.5 min.
     [InlineData(39.742476, -105.1786, 2003, 10, 17, 21.3)]
     [InlineData(51.5074, -0.1278, 2024, 12, 21, 31.8)]
     [InlineData(51.5074, -0.1278, 2024, 6, 21, 36.5)]

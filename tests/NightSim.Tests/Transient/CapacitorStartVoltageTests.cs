@@ -19,13 +19,13 @@ public class CapacitorStartVoltageTests
     [Fact]
     public void GroundedPositiveSideGivesANegativeNode() =>
         Assert.Equal(-5.0, StartVoltage([
-            new Capacitor("C1", "C1", "0", "out", 1e-6, initialVoltage: 5.0),
-            new Resistor("R1", "R1", "out", "0", 1e9)], "out"), 6);
+            new Capacitor("C1", "C1", "gnd", "out", 1e-6, initialVoltage: 5.0),
+            new Resistor("R1", "R1", "out", "gnd", 1e9)], "out"), 6);
 
     [Fact]
     public void ChainSettlesWhateverThePartOrder() =>
         Assert.Equal(5.0, StartVoltage([
             new Capacitor("C2", "C2", "top", "mid", 1e-6, initialVoltage: 2.0),
-            new Capacitor("C1", "C1", "mid", "0", 1e-6, initialVoltage: 3.0),
-            new Resistor("R1", "R1", "top", "0", 1e9)], "top"), 6);
+            new Capacitor("C1", "C1", "mid", "gnd", 1e-6, initialVoltage: 3.0),
+            new Resistor("R1", "R1", "top", "gnd", 1e9)], "top"), 6);
 }

@@ -4,7 +4,8 @@ using NightSim.Transient;
 
 namespace NightSim.Tests.Transient;
 
-/// <summary>RL rise and series RLC ringing against their closed forms (circuit-theory textbooks; numerics.md §9).</summary>
+/// <summary>RL rise and series RLC ringing against their closed forms (circuit-theory textbooks, e.g. Nilsson &amp; Riedel, Electric
+/// Circuits, chs. 7–8; docs/numerics.md §9).</summary>
 public sealed class ClosedFormTests
 {
     [Fact]
@@ -14,9 +15,9 @@ public sealed class ClosedFormTests
         const double V = 1, R = 10, L = 10e-3, Tau = L / R;
         var circuit = Circuit.FromDevices("rl",
         [
-            new VoltageSource("V1", "V1", "in", "0", Waveform.Dc(V)),
+            new VoltageSource("V1", "V1", "in", "gnd", Waveform.Dc(V)),
             new Resistor("R1", "R1", "in", "a", R),
-            new Inductor("L1", "L1", "a", "0", L),
+            new Inductor("L1", "L1", "a", "gnd", L),
         ]);
         var result = TransientSolver.Run(circuit, 8 * Tau, TransientOptions.Default with { SupplyRamp = 0, RecordNodes = ["L1.i"] });
         Assert.True(result.Succeeded, result.Failure?.ToString());
@@ -37,9 +38,9 @@ public sealed class ClosedFormTests
         omegaD = Math.Sqrt(1 / (L * C) - alpha * alpha);
         return Circuit.FromDevices("rlc",
         [
-            new Capacitor("C1", "C1", "a", "0", C, initialVoltage: v0),
+            new Capacitor("C1", "C1", "a", "gnd", C, initialVoltage: v0),
             new Inductor("L1", "L1", "a", "b", L),
-            new Resistor("R1", "R1", "b", "0", R),
+            new Resistor("R1", "R1", "b", "gnd", R),
         ]);
     }
 
@@ -83,11 +84,11 @@ public sealed class ClosedFormTests
     [InlineData(IntegrationMethod.BackwardEuler, 1.0)]
     public void Observed_Order_On_Rc_Matches_The_Method(IntegrationMethod method, double order)
     {
-        // Fixed steps h, h/2, h/4 with control off (numerics.md §9, "Order"): p_obs = log2(e_h / e_{h/2}).
+        // Fixed steps h, h/2, h/4 with control off (docs/numerics.md §9): p_obs = log2(e_h / e_{h/2}).
         const double R = 1e3, C = 1e-6, V0 = 1, T = 1e-3;
         double Error(double h)
         {
-            var c = Circuit.FromDevices("rc", [new Resistor("R1", "R1", "a", "0", R), new Capacitor("C1", "C1", "a", "0", C, initialVoltage: V0)]);
+            var c = Circuit.FromDevices("rc", [new Resistor("R1", "R1", "a", "gnd", R), new Capacitor("C1", "C1", "a", "gnd", C, initialVoltage: V0)]);
             var r = TransientSolver.Run(c, T, TransientOptions.Verification with { Method = method, FixedStep = h, RelativeTolerance = 1e-12, VoltageTolerance = 1e-15 });
             Assert.True(r.Succeeded, r.Failure?.ToString());
             return Math.Abs(r.Trace("a")!.Values[^1] - V0 * Math.Exp(-T / (R * C)));
@@ -119,7 +120,8 @@ public sealed class ClosedFormTests
     [InlineData(IntegrationMethod.BackwardEuler)]
     public void One_Step_On_An_Rc_Equals_The_Amplification_Factor(IntegrationMethod method)
     {
-        // y' = λy, z = λh: BE 1/(1 − z); TR (1 + z/2)/(1 − z/2); TR-BDF2 (a(1 + dz)/(1 − dz) − b)/(1 − dz) (numerics.md §9).
+        // y' = λy, z = λh: BE 1/(1 − z); TR (1 + z/2)/(1 − z/2); TR-BDF2 (a(1 + dz)/(1 − dz) − b)/(1 − dz), from the
+        // stage equations (Bank et al. 1985; docs/numerics.md §1).
         const double R = 1e3, C = 1e-6, h = 0.3e-3;
         double z = -h / (R * C);
         double g = 2 - Math.Sqrt(2), d = g / 2, a = 1 / (g * (2 - g)), b = (1 - g) * (1 - g) / (g * (2 - g));
@@ -129,7 +131,7 @@ public sealed class ClosedFormTests
             IntegrationMethod.Trapezoidal => (1 + z / 2) / (1 - z / 2),
             _ => (a * (1 + d * z) / (1 - d * z) - b) / (1 - d * z),
         };
-        var c = Circuit.FromDevices("rc", [new Resistor("R1", "R1", "a", "0", R), new Capacitor("C1", "C1", "a", "0", C, initialVoltage: 1.0)]);
+        var c = Circuit.FromDevices("rc", [new Resistor("R1", "R1", "a", "gnd", R), new Capacitor("C1", "C1", "a", "gnd", C, initialVoltage: 1.0)]);
         var r = TransientSolver.Run(c, h, TransientOptions.Verification with { Method = method, FixedStep = h, RelativeTolerance = 1e-14, VoltageTolerance = 1e-16 });
         Assert.True(r.Succeeded, r.Failure?.ToString());
         Assert.Equal(1, r.Statistics.AcceptedSteps);

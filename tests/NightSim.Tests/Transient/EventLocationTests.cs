@@ -8,7 +8,7 @@ namespace NightSim.Tests.Transient;
 
 /// <summary>
 /// Event location on real re-taken steps: the located time must not depend on how long the step was in which the
-/// crossing fell (numerics.md §5).
+/// crossing fell (docs/numerics.md §5).
 /// </summary>
 public sealed class EventLocationTests
 {
@@ -16,12 +16,12 @@ public sealed class EventLocationTests
 
     private static (Circuit Circuit, ThresholdSwitch Switch) Charging(double threshold)
     {
-        var sw = new ThresholdSwitch("U1", "cap", "out", "0", threshold, 1e3);
+        var sw = new ThresholdSwitch("U1", "cap", "out", "gnd", threshold, 1e3);
         var circuit = Circuit.FromDevices("rc-threshold",
         [
-            new VoltageSource("V1", "V1", "vcc", "0", Waveform.Dc(V)),
+            new VoltageSource("V1", "V1", "vcc", "gnd", Waveform.Dc(V)),
             new Resistor("R1", "R1", "vcc", "cap", R),
-            new Capacitor("C1", "C1", "cap", "0", C),
+            new Capacitor("C1", "C1", "cap", "gnd", C),
             new Resistor("R2", "R2", "vcc", "out", 1e3),
             sw,
         ]);

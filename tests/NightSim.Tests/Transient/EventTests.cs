@@ -13,15 +13,15 @@ public sealed class EventTests
     private static (Circuit Circuit, ThresholdSwitch First, ThresholdSwitch Second) Timer()
     {
         // RC charging to 12 V; a threshold at 2/3 of the supply (8 V) is crossed at t* = RC·ln 3 = 1.0986 s
-        // (RC closed form; the 555 one-shot relation T = RC ln 3, check-values.md). The first switch then loads node
-        // "out"; the second follows the first in the same logic pass.
-        var first = new ThresholdSwitch("U1", "cap", "out", "0", 2.0 / 3.0 * V, 1e3);
-        var second = new ThresholdSwitch("U2", "cap", "out2", "0", 0, 1e3, follow: first);
+        // (RC closed form v = V(1 − e^(−t/RC)) solved for 2V/3). The first switch then
+        // loads node "out"; the second follows the first in the same logic pass.
+        var first = new ThresholdSwitch("U1", "cap", "out", "gnd", 2.0 / 3.0 * V, 1e3);
+        var second = new ThresholdSwitch("U2", "cap", "out2", "gnd", 0, 1e3, follow: first);
         var circuit = Circuit.FromDevices("timer",
         [
-            new VoltageSource("V1", "V1", "vcc", "0", Waveform.Dc(V)),
+            new VoltageSource("V1", "V1", "vcc", "gnd", Waveform.Dc(V)),
             new Resistor("R1", "R1", "vcc", "cap", R),
-            new Capacitor("C1", "C1", "cap", "0", C),
+            new Capacitor("C1", "C1", "cap", "gnd", C),
             new Resistor("R2", "R2", "vcc", "out", 1e3),
             new Resistor("R3", "R3", "vcc", "out2", 1e3),
             first,
@@ -63,9 +63,9 @@ public sealed class EventTests
         // Switch closes at 0.25 s and opens at 0.75 s: it discharges an RC through 1 kΩ only in between.
         var circuit = Circuit.FromDevices("switched",
         [
-            new Capacitor("C1", "C1", "a", "0", 1e-3, initialVoltage: 10),
-            new Resistor("R1", "R1", "a", "0", 1e9),
-            new Switch("S1", "S1", "a", "0", 1e3, 1e12, false, [(0.25, 1), (0.75, 0)]),
+            new Capacitor("C1", "C1", "a", "gnd", 1e-3, initialVoltage: 10),
+            new Resistor("R1", "R1", "a", "gnd", 1e9),
+            new Switch("S1", "S1", "a", "gnd", 1e3, 1e12, false, [(0.25, 1), (0.75, 0)]),
         ]);
         var result = TransientSolver.Run(circuit, 1.0, TransientOptions.Verification with { RelativeTolerance = 1e-10, VoltageTolerance = 1e-12 });
         Assert.True(result.Succeeded, result.Failure?.ToString());

@@ -31,8 +31,8 @@ public sealed class FailureTests
     {
         var circuit = Circuit.FromDevices("zeno",
         [
-            new Resistor("R1", "R1", "a", "0", 1e3),
-            new Capacitor("C1", "C1", "a", "0", 1e-6, initialVoltage: 1),
+            new Resistor("R1", "R1", "a", "gnd", 1e3),
+            new Capacitor("C1", "C1", "a", "gnd", 1e-6, initialVoltage: 1),
             new Ring(),
         ]);
         var result = TransientSolver.Run(circuit, 1.0);

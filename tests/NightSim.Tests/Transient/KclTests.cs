@@ -17,17 +17,17 @@ public sealed class KclTests
     {
         var devices = new List<Device>
         {
-            new VoltageSource("VCC", "VCC", "n0", "0", Waveform.Dc(12)),
-            new VoltageSource("VIN", "VIN", "vin", "0", Waveform.Sine(0, 5, 50, 0, 0)),
+            new VoltageSource("VCC", "VCC", "n0", "gnd", Waveform.Dc(12)),
+            new VoltageSource("VIN", "VIN", "vin", "gnd", Waveform.Sine(0, 5, 50, 0, 0)),
             new Resistor("RIN", "RIN", "vin", "n1", 1e3),
         };
-        string Node(int i) => i < 0 ? "0" : $"n{i}";
+        string Node(int i) => i < 0 ? "gnd" : $"n{i}";
         string Pick() => Node((int)rng.NextInt(nodes + 1) - 1);
         // Every node gets a resistor to an earlier node (DC path) and a capacitor to ground.
         for (int i = 1; i < nodes; i++)
         {
             devices.Add(new Resistor($"R{i}", $"R{i}", Node(i), Node((int)rng.NextInt(i)), Math.Pow(10, 2 + 3 * rng.NextDouble())));
-            devices.Add(new Capacitor($"C{i}", $"C{i}", Node(i), "0", Math.Pow(10, -9 + 3 * rng.NextDouble())));
+            devices.Add(new Capacitor($"C{i}", $"C{i}", Node(i), "gnd", Math.Pow(10, -9 + 3 * rng.NextDouble())));
         }
         for (int k = 0; k < 3; k++)
         {
@@ -40,7 +40,7 @@ public sealed class KclTests
             if (c != b && b != e && c != e)
                 devices.Add(new Bjt($"Q{k}", $"Q{k}", c, b, e, pnp: k == 1, earlyVoltage: 75, cje: 10e-12, cjc: 4e-12, tf: 1e-9));
         }
-        devices.Add(Zener.Create("Z1", "Z1", "0", Node(nodes - 1), 5.1));
+        devices.Add(Zener.Create("Z1", "Z1", "gnd", Node(nodes - 1), 5.1));
         return Circuit.FromDevices("random", devices);
     }
 

@@ -10,13 +10,13 @@ public sealed class LongRunTests
     private static Circuit DayCircuit() => Circuit.FromDevices("day",
     [
         // 1 V baseline with a 1 µs, 5 V pulse every hour (first at 30 min), 10 ns edges.
-        new VoltageSource("V1", "V1", "in", "0", Waveform.Pulse(1, 5, 1800, 10e-9, 10e-9, 1e-6, 3600)),
+        new VoltageSource("V1", "V1", "in", "gnd", Waveform.Pulse(1, 5, 1800, 10e-9, 10e-9, 1e-6, 3600)),
         // Slow RC, τ = 1 h.
         new Resistor("R1", "R1", "in", "slow", 1e6),
-        new Capacitor("C1", "C1", "slow", "0", 3.6e-3),
+        new Capacitor("C1", "C1", "slow", "gnd", 3.6e-3),
         // Fast RC, τ = 1 µs: sees each pulse.
         new Resistor("R2", "R2", "in", "fast", 1e3),
-        new Capacitor("C2", "C2", "fast", "0", 1e-9),
+        new Capacitor("C2", "C2", "fast", "gnd", 1e-9),
     ]);
 
     /// <summary>Peak of the fast RC (τ = 1 µs) driven by the trapezoid 1 → 5 V (10 ns edges, 1 µs top), from the closed
@@ -68,15 +68,15 @@ public sealed class LongRunTests
     public void A_Pulse_One_Year_In_Is_Resolved_As_Well_As_One_At_The_Start()
     {
         // At t ≈ 3.15e7 s one ulp of a double is 3.7 ns: the 100 ns edges and the 1 µs pulse must still come out as
-        // at t = 0 (time is landed on by assignment and steps are carried, never differenced; numerics.md §3).
+        // at t = 0 (time is landed on by assignment and steps are carried, never differenced; docs/numerics.md §3).
         double year = 365.25 * 86400;
         double Peak(double delay)
         {
             var c = Circuit.FromDevices("late",
             [
-                new VoltageSource("V1", "V1", "in", "0", Waveform.Pulse(1, 5, delay, 100e-9, 100e-9, 1e-6, double.PositiveInfinity)),
+                new VoltageSource("V1", "V1", "in", "gnd", Waveform.Pulse(1, 5, delay, 100e-9, 100e-9, 1e-6, double.PositiveInfinity)),
                 new Resistor("R2", "R2", "in", "fast", 1e3),
-                new Capacitor("C2", "C2", "fast", "0", 1e-9),
+                new Capacitor("C2", "C2", "fast", "gnd", 1e-9),
             ]);
             var r = TransientSolver.Run(c, delay + 5e-6, TransientOptions.Default with { MaxStep = 1e7 });
             Assert.True(r.Succeeded, r.Failure?.ToString());
@@ -110,13 +110,13 @@ public sealed class LongRunTests
         // (GC.GetAllocatedBytesForCurrentThread; the hot loop uses preallocated arrays only).
         var circuit = Circuit.FromDevices("steady",
         [
-            new VoltageSource("V1", "V1", "vcc", "0", Waveform.Dc(12)),
+            new VoltageSource("V1", "V1", "vcc", "gnd", Waveform.Dc(12)),
             new Resistor("R1", "R1", "vcc", "b", 100e3),
-            new Capacitor("C1", "C1", "b", "0", 10e-6, leakageCurrent: 1e-9),
-            new Bjt("Q1", "Q1", "c", "b", "0", earlyVoltage: 75, cje: 10e-12, cjc: 4e-12),
+            new Capacitor("C1", "C1", "b", "gnd", 10e-6, leakageCurrent: 1e-9),
+            new Bjt("Q1", "Q1", "c", "b", "gnd", earlyVoltage: 75, cje: 10e-12, cjc: 4e-12),
             new Resistor("R2", "R2", "vcc", "c", 4.7e3),
             new Diode("D1", "D1", "c", "vcc", junctionCapacitance: 2e-12),
-            new Switch("S1", "S1", "c", "0", 0.1, 1e9, false),
+            new Switch("S1", "S1", "c", "gnd", 0.1, 1e9, false),
         ]);
         var solver = new TransientSolver(circuit, TransientOptions.Default);
         solver.Begin(1e9);

@@ -5,16 +5,16 @@ using NightSim.Transient;
 namespace NightSim.Tests.Transient;
 
 /// <summary>RC charge and discharge against the exponential closed form v = V(1 − e^(−t/RC)) (any circuits textbook;
-/// numerics.md §9).</summary>
+/// docs/numerics.md §9).</summary>
 public sealed class RcTests
 {
     private const double R = 1e3, C = 1e-6, V = 5.0, Tau = R * C;
 
     private static Circuit ChargeCircuit() => Circuit.FromDevices("rc",
     [
-        new VoltageSource("V1", "V1", "in", "0", Waveform.Dc(V)),
+        new VoltageSource("V1", "V1", "in", "gnd", Waveform.Dc(V)),
         new Resistor("R1", "R1", "in", "out", R),
-        new Capacitor("C1", "C1", "out", "0", C),
+        new Capacitor("C1", "C1", "out", "gnd", C),
     ]);
 
     [Fact]
@@ -41,8 +41,8 @@ public sealed class RcTests
     {
         var circuit = Circuit.FromDevices("rc-discharge",
         [
-            new Resistor("R1", "R1", "out", "0", R),
-            new Capacitor("C1", "C1", "out", "0", C, initialVoltage: V),
+            new Resistor("R1", "R1", "out", "gnd", R),
+            new Capacitor("C1", "C1", "out", "gnd", C, initialVoltage: V),
         ]);
         var result = TransientSolver.Run(circuit, 8 * Tau);
         Assert.True(result.Succeeded, result.Failure?.ToString());

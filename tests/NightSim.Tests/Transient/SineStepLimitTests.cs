@@ -14,11 +14,11 @@ public class SineStepLimitTests
     {
         const string json = """
         { "name": "sine-comparator", "parts": [
-          { "id": "V1", "kind": "voltage-source", "nodes": ["a", "0"], "sine": { "amplitude": "5", "frequency": "50" } },
-          { "id": "VCC", "kind": "voltage-source", "nodes": ["vcc", "0"], "dc": "12" },
-          { "id": "R1", "kind": "resistor", "nodes": ["a", "0"], "value": "10k" },
-          { "id": "U1", "kind": "comparator", "pins": { "plus": "a", "minus": "0", "output": "out", "vcc": "vcc", "gnd": "0" }, "offset": "4.5" },
-          { "id": "RL", "kind": "resistor", "nodes": ["out", "0"], "value": "10k" } ] }
+          { "id": "V1", "kind": "voltage-source", "nodes": ["a", "gnd"], "sine": { "amplitude": "5", "frequency": "50" } },
+          { "id": "VCC", "kind": "voltage-source", "nodes": ["vcc", "gnd"], "constant": "12" },
+          { "id": "R1", "kind": "resistor", "nodes": ["a", "gnd"], "value": "10k" },
+          { "id": "U1", "kind": "comparator", "pins": { "plus": "a", "minus": "gnd", "output": "out", "vcc": "vcc", "gnd": "gnd" }, "offset": "4.5" },
+          { "id": "RL", "kind": "resistor", "nodes": ["out", "gnd"], "value": "10k" } ] }
         """;
         SimulationResult r = TransientSolver.Run(Circuit.Build(NetlistLoader.LoadText(json)), 1.0);
         Assert.True(r.Succeeded, r.Failure?.ToString());

@@ -13,7 +13,7 @@ namespace NightSim.Devices.Composite;
 /// </summary>
 /// <remarks>
 /// Two families by <c>variant</c>; every value can be overridden. Defaults are common practice for the part class
-/// (check-values §6, bands), some from memory: see each parameter's description.
+/// (typical bands of the bipolar and CMOS families), some from memory: see each parameter's description.
 /// </remarks>
 public static class Timer555
 {
@@ -43,7 +43,7 @@ public static class Timer555
         double DischargeResistance, double DischargeOffResistance, double SupplyCurrent, double DividerResistance,
         double OutputDropHigh, double OutputDropLow, double OutputResistanceHigh, double OutputResistanceLow);
 
-    // Common practice for the part class (check-values §6 table: input currents, leakage, supply current, output drop);
+    // Common practice for the part class (input currents, discharge leakage, supply current, output drop);
     // divider legs, reset values, discharge and output resistances from memory.
     private static readonly Family s_bipolar = new(30e-9, 0.5e-6, 0.1e-3, 0.7, 10.0, 500e6, 8e-3, 5e3, 1.4, 0.05, 3.0, 10.0);
     private static readonly Family s_cmos = new(10e-12, 10e-12, 10e-12, 0.7, 15.0, 10e9, 0.2e-3, 100e3, 0.0, 0.0, 150.0, 20.0);

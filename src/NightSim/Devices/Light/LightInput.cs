@@ -4,7 +4,7 @@ namespace NightSim.Devices.Light;
 
 /// <summary>
 /// What a light sensor sees: a named light channel (default "sensor") times a gain (aim, shade, lens). When the run
-/// has no light signal, the part's own constant "lux" or piecewise-linear "luxPwl" [[t, lux], …] is used instead (its
+/// has no light signal, the part's own constant "lux" or "luxPoints" [[t, lux], …] is used instead (its
 /// corners are breakpoints), else the run's constant lux. Light the circuit adds to the channel (lamp self-illumination)
 /// is added in every case. Immutable apart from the channel index resolved at Setup.
 /// </summary>
@@ -13,10 +13,10 @@ public sealed class LightInput
     public static readonly ParameterSpec ChannelSpec = new("channel", ParameterType.Text, "", "Light channel the sensor reads") { DefaultText = "sensor" };
     public static readonly ParameterSpec GainSpec = ParameterSpec.Number("lightGain", "", "Factor on the channel's illuminance (aim, shade, lens)") with { Default = 1.0, Min = 0, Max = 1e3 };
     public static readonly ParameterSpec LuxSpec = ParameterSpec.Number("lux", "lx", "Constant illuminance when the run has no light signal") with { Min = 0, Max = 2e5, ExclusiveGroup = "light" };
-    public static readonly ParameterSpec LuxPwlSpec = ParameterSpec.PointList("luxPwl", "lx", "Piecewise-linear illuminance [[t, lux], …] when the run has no light signal") with { ExclusiveGroup = "light" };
+    public static readonly ParameterSpec LuxPointsSpec = ParameterSpec.PointList("luxPoints", "lx", "Illuminance along straight lines through [[t, lux], …] when the run has no light signal") with { ExclusiveGroup = "light" };
 
     /// <summary>The four parameters every light sensor accepts.</summary>
-    public static IReadOnlyList<ParameterSpec> Specs { get; } = [ChannelSpec, GainSpec, LuxSpec, LuxPwlSpec];
+    public static IReadOnlyList<ParameterSpec> Specs { get; } = [ChannelSpec, GainSpec, LuxSpec, LuxPointsSpec];
 
     private readonly double[] _times;
     private readonly double[] _values;
@@ -36,9 +36,9 @@ public sealed class LightInput
         _values = pwl is null ? [] : pwl.Select(p => p.Y).ToArray();
     }
 
-    /// <summary>Reads channel, gain, lux and luxPwl from a part's parameters.</summary>
+    /// <summary>Reads channel, gain, lux and luxPoints from a part's parameters.</summary>
     public static LightInput FromParameters(PartParameters p) =>
-        new(p.TextOrDefault(ChannelSpec), p.NumberOrDefault(GainSpec), p.OptionalNumber(LuxSpec.Name), p.Points(LuxPwlSpec.Name));
+        new(p.TextOrDefault(ChannelSpec), p.NumberOrDefault(GainSpec), p.OptionalNumber(LuxSpec.Name), p.Points(LuxPointsSpec.Name));
 
     public string ChannelName { get; }
 

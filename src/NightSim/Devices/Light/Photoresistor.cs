@@ -3,8 +3,8 @@ using NightSim.Netlist;
 namespace NightSim.Devices.Light;
 
 /// <summary>
-/// CdS photoresistor: R(E) = R10·(E/10 lx)^(−γ) in parallel with the dark resistance (textbook photoconductor law,
-/// check-values §4), with a first-order lag on the conductance: rise time constant while the light increases, a slower
+/// CdS photoresistor: R(E) = R10·(E/10 lx)^(−γ) in parallel with the dark resistance (textbook photoconductor power law,
+/// common practice), with a first-order lag on the conductance: rise time constant while the light increases, a slower
 /// decay time constant while it falls.
 /// </summary>
 /// <remarks>

@@ -10,7 +10,7 @@ namespace NightSim.Devices.Light;
 /// </summary>
 /// <remarks>
 /// Defaults give k = β·base responsivity = 0.5 µA/lx and 10 nA dark current, an eye-corrected NPN part class
-/// (check-values §4, from memory); V_knee 0.1 V from memory; 10 pF collector-emitter capacitance from memory.
+/// (from memory); V_knee 0.1 V from memory; 10 pF collector-emitter capacitance from memory.
 /// </remarks>
 public sealed class Phototransistor : Device
 {

@@ -5,8 +5,9 @@ namespace NightSim.Sky.Events;
 
 /// <summary>
 /// A passing car's headlights at the sensor: a trapezoid in time (linear rise, hold at peak, linear fall). Typical
-/// values (check-values §5): a low beam gives ≈ 0.1–10 lx at a sensor 2–3 m up; a pass lasts ≈ 1–3.3 s; a car
-/// turning in sweeps in 0.5–2 s and may stay lit 30–90 s.
+/// values (common practice): a low beam gives ≈ 0.1–10 lx at a sensor 2–3 m up (E = I/d² with the 125–1 000 cd a low
+/// beam may send above the horizon under SAE J1383 / FMVSS No. 108); a pass lasts t = y/(v·tan θ) ≈ 1–3.3 s (30 km/h,
+/// 10 m, 20° → 3.3 s); a car turning in sweeps in 0.5–2 s and may stay lit 30–90 s.
 /// </summary>
 public sealed class HeadlightPass : ILightEvent
 {

@@ -5,7 +5,8 @@ namespace NightSim.Sky.Events;
 /// <summary>
 /// The controller's own lamp lighting its sensor: <see cref="Lux"/> is added on <see cref="Channel"/> while the named
 /// relay contact or load <see cref="Part"/> is on. Data only — the circuit run evaluates it from the circuit's state.
-/// A level control cycles unless this lux is below (OFF/ON − 1)·E_on (check-values §5, common practice).
+/// A level control cycles unless this lux is below (OFF/ON − 1)·E_on (common practice: the lamp's
+/// own light must not lift the sensor from the ON level E_on to the OFF level (OFF/ON)·E_on).
 /// </summary>
 /// <param name="Part">Netlist part id of the relay or load ("K1", "LAMP").</param>
 /// <param name="Contact">Contact name of the relay ("NO"), or null for the part's own on-state.</param>

@@ -8,8 +8,9 @@ public readonly record struct LightningStroke(double Start, double PeakLux);
 
 /// <summary>
 /// A multi-stroke lightning flash. Each stroke rises linearly in <see cref="RiseSeconds"/> and decays exponentially
-/// with <see cref="DecaySeconds"/>, cut to zero after ten time constants. Defaults follow check-values §5 (CIGRE TB 549,
-/// Krider &amp; Guo 1983): 3–5 strokes ≈ 60 ms apart, 20 µs rise, 300 µs decay.
+/// with <see cref="DecaySeconds"/>, cut to zero after ten time constants. Defaults: 3–5 strokes ≈ 60 ms
+/// apart (CIGRE Technical Brochure 549, Lightning parameters for engineering applications, 2013); 20 µs rise and
+/// 300 µs decay of a stroke's light from memory.
 /// </summary>
 public sealed class LightningFlash : ILightEvent
 {
@@ -82,7 +83,8 @@ public sealed record LightningStorm(TimeSpan From, double Minutes, double Flashe
 
 /// <summary>
 /// JSON kind "lightning": seeded storms of multi-stroke flashes. Each flash has 3–5 strokes (uniform), 40–80 ms apart,
-/// each stroke's peak uniform in 30–100 % of "peakLux" (check-values §5: 10–10 000 lx at the sensor is plausible).
+/// each stroke's peak uniform in 30–100 % of "peakLux" (10–10 000 lx at the sensor is plausible: 10⁹ W of light at 100 lm/W,
+/// isotropic, gives E = Φ/(4πd²) ≈ 8 000 lx at 1 km and 80 lx at 10 km; an order-of-magnitude estimate).
 /// </summary>
 public sealed class LightningDefinition : IEventDefinition
 {

@@ -16,7 +16,7 @@ public enum NoiseQuantity
 /// <summary>
 /// One electrical noise pulse injected at a netlist node: rectangular, <see cref="Width"/> seconds long from
 /// <see cref="Time"/>. Data only — the circuit run applies it. Reference shapes: IEC 61000-4-4 bursts (5/50 ns),
-/// IEC 61000-4-5 surges (1.2/50 µs) (check-values §5).
+/// IEC 61000-4-5 surges (1.2/50 µs).
 /// </summary>
 /// <param name="Node">Node name.</param>
 /// <param name="Time">Run time of the pulse start, seconds.</param>

@@ -5,7 +5,8 @@ namespace NightSim.Sky.Events;
 
 /// <summary>
 /// A porch or street light: constant lux at the sensor between switch-on and switch-off. Typical: 800 lm isotropic
-/// gives 2.5 lx at 5 m; a residential street ≈ 4.3 lx (check-values §5).
+/// gives 2.5 lx at 5 m (E = Φ/(4πd²)); a residential street ≈ 4.3 lx (0.4 fc, the order of the residential values
+/// of ANSI/IES RP-8, Roadway Lighting, read in a secondary table).
 /// </summary>
 public sealed class SteadyLight : ILightEvent
 {

@@ -8,7 +8,9 @@ public sealed class HeadlightPassTests
     [Fact]
     public void Trapezoid_RiseHoldFall()
     {
-        // check-values §5: a pass of ≈ 3.3 s (30 km/h, 10 m, 20°), rise 0.5 s chosen here.
+        // Duration 3.3 s: a car at 30 km/h passing 10 m from the sensor with a beam 20° off its axis lights it for
+        // t = y/(v·tan θ) = 10 m/(8.33 m/s · tan 20°) = 3.30 s (plane geometry, computed by hand). Peak 40 lx, rise 0.5 s and
+        // fall 0.8 s are chosen inputs; the expected values are the trapezoid's linear interpolation, computed by hand.
         var h = new HeadlightPass(100, 3.3, 0.5, 0.8, 40, "sensor");
         Assert.Equal(0, h.Value(100));
         Assert.Equal(20, h.Value(100.25), 9);

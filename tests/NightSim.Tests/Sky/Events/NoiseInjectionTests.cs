@@ -8,7 +8,7 @@ public sealed class NoiseInjectionTests
     [Fact]
     public void ExplicitAndSeededPulses_WithBreakpoints()
     {
-        // IEC 61000-4-5 surge scale (check-values §5): a 1.2/50 µs class pulse, modelled here as 50 µs wide.
+        // IEC 61000-4-5 surge scale: a 1.2/50 µs class pulse, modelled here as 50 µs wide.
         LightScenario s = ScenarioLoader.Parse("""
             { "site": { "latitude": 52.1, "longitude": 8.6, "timeZone": "UTC" }, "start": "2026-01-01", "seed": 3,
               "events": [ { "kind": "noise", "node": "trig", "times": ["22:15:03"], "amplitude": "5V", "width": "50u" },

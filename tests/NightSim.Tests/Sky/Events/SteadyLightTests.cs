@@ -8,7 +8,7 @@ public sealed class SteadyLightTests
     [Fact]
     public void OnOffAcrossMidnight_EveryNight()
     {
-        // 800 lm isotropic at 5 m ≈ 2.5 lx (check-values §5).
+        // 800 lm isotropic at 5 m: E = Φ/(4πd²) = 800/(4π·25) ≈ 2.5 lx (inverse-square law, computed by hand).
         LightScenario s = ScenarioLoader.Parse("""
             { "site": { "latitude": 52.1, "longitude": 8.6, "timeZone": "UTC" }, "start": "2026-01-01", "nights": 3,
               "events": [ { "kind": "steady-light", "on": "19:00", "off": "06:30", "lux": 2.5 } ] }
