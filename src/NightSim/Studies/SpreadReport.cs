@@ -33,6 +33,7 @@ public sealed record SpreadReport(StudyHeader Header, IReadOnlyList<Variation> V
             w.WriteNumber("nominal", v.Nominal);
             w.WriteNumber("low", v.Low);
             w.WriteNumber("high", v.High);
+            StudyJson.NumberOrNull(w, "drawHigh", v.DrawHigh);
             w.WriteString("distribution", v.LogScale ? "log-uniform" : "uniform");
             w.WriteString("source", v.Source);
             w.WriteEndObject();

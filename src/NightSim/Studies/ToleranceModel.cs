@@ -46,7 +46,8 @@ public static class ToleranceModel
                         double high = double.IsNaN(limit) ? 2 * nominal : Math.Max(limit, nominal);
                         if (nominal > 0 && high > nominal)
                             list.Add(new Variation(p.Id, "leakageCurrent", nominal, nominal / 2, high, true,
-                                double.IsNaN(limit) ? "leakage ½× to 2× stated" : "leakage ½× typical to the IEC 60384-4 limit", "A"));
+                                double.IsNaN(limit) ? "leakage ½× to 2× stated" : "leakage drawn ½× to 4× typical; worst case the IEC 60384-4 limit", "A")
+                            { DrawHigh = Math.Min(high, 4 * nominal) });
                     }
                     break;
                 }

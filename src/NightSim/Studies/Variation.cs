@@ -15,11 +15,19 @@ namespace NightSim.Studies;
 /// <param name="Unit">SI unit for printing ("Ω", "F", "A", "V", "" for a ratio).</param>
 public sealed record Variation(string PartId, string Parameter, double Nominal, double Low, double High, bool LogScale, string Source, string Unit = "")
 {
+    /// <summary>Upper end of random draws when it differs from the worst case <see cref="High"/> (a leakage current:
+    /// parts scatter around the typical value, the catalogue limit is the worst case), or null.</summary>
+    public double? DrawHigh { get; init; }
+
     /// <summary>"PART.parameter", the key in study files.</summary>
     public string Key => PartId + "." + Parameter;
 
     /// <summary>The value at <paramref name="u"/> ∈ [0, 1) across the band.</summary>
-    public double At(double u) => LogScale && Low > 0
-        ? Math.Exp(Math.Log(Low) + u * (Math.Log(High) - Math.Log(Low)))
-        : Low + u * (High - Low);
+    public double At(double u)
+    {
+        double high = DrawHigh ?? High;
+        return LogScale && Low > 0
+            ? Math.Exp(Math.Log(Low) + u * (Math.Log(high) - Math.Log(Low)))
+            : Low + u * (high - Low);
+    }
 }
