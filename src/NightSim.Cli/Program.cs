@@ -19,6 +19,7 @@ internal static class Program
         root.Subcommands.Add(SkyCommand.Create());
         root.Subcommands.Add(SweepCommand.Create());
         root.Subcommands.Add(SpreadCommand.Create());
+        root.Subcommands.Add(YearCommand.Create());
         root.Subcommands.Add(MergeCommand.Create());
 
         return root;

@@ -130,3 +130,76 @@ public static class StudyPlots
     /// <summary>"3.5 h" style number for labels.</summary>
     public static string N(double v, string format = "0.##") => v.ToString(format, s_inv);
 }
+
+/// <summary>The year plot: switch-on and switch-off clock times against sunset and sunrise, date by date.</summary>
+public static class YearPlot
+{
+    /// <summary>Hours after local midnight of the evening's date (so 06:00 next morning is 30).</summary>
+    private static double? Hours(string? iso, DateOnly evening)
+    {
+        if (iso is null) return null;
+        DateTimeOffset t = DateTimeOffset.Parse(iso, System.Globalization.CultureInfo.InvariantCulture);
+        return (t.DateTime - evening.ToDateTime(TimeOnly.MinValue)).TotalHours;
+    }
+
+    public static PlotModel Build(string title, string subtitle, IReadOnlyList<Studies.YearNight> nights)
+    {
+        PlotModel model = StudyPlots.Model(title, subtitle);
+        var grid = OxyColor.FromRgb(0xE4, 0xE4, 0xE4);
+        model.Axes.Add(new DateTimeAxis { Position = AxisPosition.Bottom, StringFormat = "MMM", Title = "date of the evening", MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = grid, IntervalType = DateTimeIntervalType.Months });
+        model.Axes.Add(new LinearAxis
+        {
+            Position = AxisPosition.Left, Title = "local time", Minimum = 15, Maximum = 33, MajorStep = 2, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = grid,
+            LabelFormatter = h => $"{((int)Math.Round(h) % 24):00}:00",
+        });
+        var sunset = new LineSeries { Title = "sunset", Color = OxyColor.FromRgb(0xD9, 0x7A, 0x00), StrokeThickness = 2 };
+        var sunrise = new LineSeries { Title = "sunrise", Color = OxyColor.FromRgb(0xE0, 0xB0, 0x00), StrokeThickness = 2 };
+        var on = new ScatterSeries { Title = "switch-on", MarkerType = MarkerType.Circle, MarkerSize = 2.5, MarkerFill = OxyColor.FromRgb(0x3A, 0x6E, 0xC0) };
+        var off = new ScatterSeries { Title = "switch-off", MarkerType = MarkerType.Circle, MarkerSize = 2.5, MarkerFill = OxyColor.FromRgb(0x1F, 0x3A, 0x60) };
+        var fail = new ScatterSeries { Title = "night failing a target", MarkerType = MarkerType.Cross, MarkerSize = 5, MarkerStroke = OxyColor.FromRgb(0xC0, 0x39, 0x2B), MarkerStrokeThickness = 1.5 };
+        foreach (Studies.YearNight n in nights)
+        {
+            double x = DateTimeAxis.ToDouble(n.Date.ToDateTime(TimeOnly.MinValue));
+            if (Hours(n.Sunset, n.Date) is double ss) sunset.Points.Add(new DataPoint(x, ss));
+            if (Hours(n.Sunrise, n.Date) is double sr) sunrise.Points.Add(new DataPoint(x, sr));
+            double? o = Hours(n.Outcome.SwitchOn, n.Date);
+            if (o is double a) on.Points.Add(new ScatterPoint(x, a));
+            if (Hours(n.Outcome.SwitchOff, n.Date) is double b) off.Points.Add(new ScatterPoint(x, b));
+            if (!n.Outcome.Pass) fail.Points.Add(new ScatterPoint(x, o ?? Hours(n.Sunset, n.Date) ?? 18));
+        }
+        model.Series.Add(sunset);
+        model.Series.Add(sunrise);
+        model.Series.Add(on);
+        model.Series.Add(off);
+        model.Series.Add(fail);
+        model.Legends.Add(new OxyPlot.Legends.Legend
+        {
+            LegendPlacement = OxyPlot.Legends.LegendPlacement.Outside, LegendPosition = OxyPlot.Legends.LegendPosition.BottomCenter,
+            LegendOrientation = OxyPlot.Legends.LegendOrientation.Horizontal, LegendFont = NightPlotBuilder.FontFamily,
+        });
+        return model;
+    }
+
+    public static PlotModel Energy(string title, IReadOnlyList<Studies.YearMonth> months)
+    {
+        PlotModel model = StudyPlots.Model(title, "energy to the lamp per month (kWh) and the share of nights meeting every target");
+        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Bottom, ItemsSource = months.Select(m => $"{m.Year:0000}-{m.Month:00}").ToList(), Angle = -45 });
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Left, Title = "kWh", Minimum = 0, MaximumPadding = 0.15 });
+        // Columns as rectangles on the category positions (0, 1, 2, …).
+        var cols = new RectangleBarSeries { FillColor = OxyColor.FromRgb(0x3A, 0x6E, 0xC0), StrokeColor = OxyColors.White };
+        for (int i = 0; i < months.Count; i++)
+        {
+            cols.Items.Add(new RectangleBarItem(i - 0.35, 0, i + 0.35, months[i].EnergyWh / 1000));
+        }
+        model.Series.Add(cols);
+        for (int i = 0; i < months.Count; i++)
+        {
+            model.Annotations.Add(new TextAnnotation
+            {
+                Text = $"{months[i].PassRate * 100:0} % pass", TextPosition = new DataPoint(i, months[i].EnergyWh / 1000), FontSize = 10,
+                TextVerticalAlignment = VerticalAlignment.Bottom, Stroke = OxyColors.Transparent,
+            });
+        }
+        return model;
+    }
+}

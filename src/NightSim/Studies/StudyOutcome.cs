@@ -34,6 +34,7 @@ public sealed record StudyOutcome
     public bool Pass { get; init; }
     /// <summary>Smallest target margin relative to its target's size (negative: missed), or null without targets.</summary>
     public double? WorstMargin { get; init; }
+    /// <summary>Energy to the load over the run, Wh, without the power-up firing.</summary>
     public double EnergyWh { get; init; }
     /// <summary>Why the simulation failed, or null.</summary>
     public string? Failure { get; init; }
@@ -63,9 +64,23 @@ public sealed record StudyOutcome
             FailedTargets = string.Join(",", checks.Where(c => !c.Pass).Select(c => c.Target).Distinct()),
             Pass = r.Simulation.Failure is null && rep.Overview.NightsPassed == rep.Overview.Nights && rep.Nights.Count > 0,
             WorstMargin = checks.Count == 0 ? null : Math.Round(checks.Min(c => c.RelativeMargin), 4),
-            EnergyWh = Math.Round(rep.Overview.EnergyWh, 4),
+            EnergyWh = Math.Round(EnergyWithoutPowerUp(rep.Nights), 4),
             Failure = r.Simulation.Failure?.ToString(),
         };
+    }
+
+    /// <summary>Energy of the nights' switch-ons, Wh, leaving out the firing at power-up (each study run starts from
+    /// power-up, which a built controller does once).</summary>
+    public static double EnergyWithoutPowerUp(IReadOnlyList<NightSummary> nights)
+    {
+        double total = 0;
+        foreach (NightSummary n in nights)
+        {
+            double all = n.LoadOn.Sum(l => l.DurationSeconds);
+            double powerUp = n.LoadOn.Where(l => l.Cause == LoadCause.PowerUp).Sum(l => l.DurationSeconds);
+            if (all > 0) total += n.LoadEnergyWh * (all - powerUp) / all;
+        }
+        return total;
     }
 
     /// <summary>Writes the outcome's properties into the current JSON object.</summary>

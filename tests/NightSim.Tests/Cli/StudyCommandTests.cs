@@ -57,6 +57,34 @@ public sealed class StudyCommandTests
     }
 
     [Fact]
+    public void Sweep_Shards_Merged_Equal_The_Unsharded_Run_And_Bad_Vary_Is_A_Usage_Mistake()
+    {
+        string root = TempDir();
+        try
+        {
+            string net = Path.Combine(RepoPaths.Netlists, "trigger-filter-present.json");
+            string whole = Path.Combine(root, "whole"), s1 = Path.Combine(root, "s1"), s2 = Path.Combine(root, "s2"), merged = Path.Combine(root, "merged");
+            string[] vary = ["--vary", "CF.value=47p,10n", "--no-progress"];
+            var a = Run(["sweep", net, .. vary, "--out", whole, "--workers", "1"]);
+            Assert.True(a.Exit == 0, a.Err);
+            Assert.Contains("1 of 2 points pass", a.Out, StringComparison.Ordinal);
+            Assert.True(Run(["sweep", net, .. vary, "--out", s1, "--shard", "1/2"]).Exit == 0);
+            Assert.True(Run(["sweep", net, .. vary, "--out", s2, "--shard", "2/2"]).Exit == 0);
+            var m = Run("merge", s1, s2, "--out", merged);
+            Assert.True(m.Exit == 0, m.Err);
+            AssertSameFiles(whole, merged, "sweep.json", "sweep.csv", "sweep.html", "sweep-on-time.svg");
+
+            var bad = Run("sweep", net, "--vary", "CX.value=1n,2n", "--out", Path.Combine(root, "bad"));
+            Assert.Equal(1, bad.Exit);
+            Assert.Contains("no part 'CX'", bad.Err, StringComparison.Ordinal);
+        }
+        finally
+        {
+            if (Directory.Exists(root)) Directory.Delete(root, recursive: true);
+        }
+    }
+
+    [Fact]
     public void Bad_Shard_Is_A_Usage_Mistake()
     {
         var r = Run("spread", Path.Combine(RepoPaths.Netlists, "garden-path.json"), "--shard", "3/2", "--out", TempDir());
