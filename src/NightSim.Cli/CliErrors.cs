@@ -1,5 +1,6 @@
 using System.CommandLine;
 using NightSim.Netlist;
+using NightSim.Inputs;
 
 namespace NightSim.Cli;
 

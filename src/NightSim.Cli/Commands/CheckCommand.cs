@@ -101,7 +101,7 @@ internal static class CheckCommand
             .OrderBy(g => PartCatalog.All.ToList().FindIndex(k => k.Name == g.Key))
             .Select(g => $"{g.Key} {g.Count()}");
         output.WriteLine($"  parts:    {def.Parts.Count} ({string.Join(", ", byKind)})");
-        List<string> nodes = def.Parts.SelectMany(p => p.Pins.Values).Where(n => !NetlistLoader.IsGround(n)).Distinct().Order(StringComparer.Ordinal).ToList();
+        List<string> nodes = def.Parts.SelectMany(p => p.Pins.Values).Where(n => !Ground.Is(n)).Distinct().Order(StringComparer.Ordinal).ToList();
         output.WriteLine($"  nodes:    {nodes.Count} + ground ({string.Join(", ", nodes)})");
         output.WriteLine(result.Warnings.Count == 0 ? "  warnings: none" : $"  warnings: {result.Warnings.Count} (above)");
         if (loadedScenario is not null)

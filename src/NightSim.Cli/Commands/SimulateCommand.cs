@@ -7,6 +7,7 @@ using NightSim.Results;
 using NightSim.Transient;
 using NightSim.Units;
 using NightSim.Cli.Rendering;
+using NightSim.Mna;
 
 namespace NightSim.Cli.Commands;
 

@@ -12,7 +12,7 @@ public sealed class LeakageLimitAnalyzer : IResultAnalyzer
         foreach (TimerFacts t in facts.Timers)
         {
             if (double.IsNaN(t.LeakageLimit)) continue;
-            double available = t.ChargingCurrentAtThreshold;
+            double available = t.AvailableCurrent;
             string cap = t.CapacitorId is null ? "the timing capacitor" : $"timing capacitor {t.CapacitorId}";
             string avail = EngineeringValue.Format(available, "A", 3), limit = EngineeringValue.Format(t.LeakageLimit, "A", 3);
             double ratio = t.LeakageLimit / available;

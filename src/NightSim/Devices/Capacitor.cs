@@ -12,7 +12,7 @@ namespace NightSim.Devices;
 /// i = I_leak · tanh(v / 0.05 V): within ±50 mV it behaves like a resistance of 0.05 V / I_leak, above ≈ 0.15 V it
 /// is the constant I_leak, and its derivative is continuous everywhere (Newton stays well-behaved at 0 V).
 /// </remarks>
-public sealed class Capacitor : Device
+public sealed class Capacitor : Device, Roles.IDcElement
 {
     /// <summary>Voltage scale of the smooth constant-current leakage law, volts.</summary>
     public const double LeakageVoltageScale = 0.05;
@@ -67,7 +67,7 @@ public sealed class Capacitor : Device
         [
             new Capacitor(def.Id, def.Id, def.Node("p"), def.Node("n"), def.Parameters.Number("value"),
                 def.Parameters.Number("esr", 0), def.Parameters.Number("leakageResistance", double.PositiveInfinity),
-                EffectiveLeakageCurrent(def), def.Parameters.OptionalNumber("initialVoltage")),
+                EffectiveLeakageCurrent(def), def.Parameters.OptionalNumber("initialVoltage")) { CatalogueLeakageLimit = LeakageLimit(def) },
         ],
         ConductsDc = false,
     };
@@ -97,6 +97,9 @@ public sealed class Capacitor : Device
             yield return "an electrolytic needs its ratedVoltage (the leakage limit and the typical leakage depend on it). hint: add e.g. \"ratedVoltage\": \"16V\"";
     }
 
+    /// <summary>Catalogue leakage limit of an electrolytic with a rated voltage (IEC 60384-4), A; NaN otherwise.</summary>
+    public double CatalogueLeakageLimit { get; init; } = double.NaN;
+
     /// <summary>Capacitance in farads.</summary>
     public double Capacitance { get; }
 
@@ -114,6 +117,15 @@ public sealed class Capacitor : Device
 
     /// <summary>Unknown index of the node on the dielectric's p side (the internal node when ESR &gt; 0); valid after Setup.</summary>
     public int InnerNode => _inner;
+
+    /// <summary>Open at DC: its capacitance, and its leakage as a drain (a resistance, or the constant current it
+    /// settles to above a few tenths of a volt).</summary>
+    public void StampDc(Roles.DcNetwork network)
+    {
+        network.Capacitance(Nodes[0], Nodes[1], Capacitance);
+        if (!double.IsPositiveInfinity(LeakageResistance)) network.Conductance(Nodes[0], Nodes[1], 1.0 / LeakageResistance, drain: true);
+        if (LeakageCurrent > 0) network.Current(Nodes[0], Nodes[1], LeakageCurrent, drain: true);
+    }
 
     public override void Setup(SetupContext setup)
     {

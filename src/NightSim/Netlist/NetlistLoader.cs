@@ -57,15 +57,6 @@ public static class NetlistLoader
     /// <summary>Reads and validates JSON text without throwing for bad input.</summary>
     public static NetlistLoadResult ReadText(string json, string fileName = "netlist.json") => ReadUtf8(Encoding.UTF8.GetBytes(json), fileName);
 
-    /// <summary>The ground node's name, as documented and as the engine sees it.</summary>
-    public const string Ground = "gnd";
-
-    /// <summary>True for a ground name: "gnd" in any case (a bare "0" is accepted too, never shown).</summary>
-    public static bool IsGround(string node) => node == "0" || node.Equals("gnd", StringComparison.OrdinalIgnoreCase);
-
-    /// <summary>The node name as the engine sees it: ground becomes "gnd", other names are trimmed.</summary>
-    public static string NormalizeNode(string node) => IsGround(node.Trim()) ? Ground : node.Trim();
-
     private static NetlistLoadResult ReadUtf8(byte[] utf8, string file)
     {
         var session = new Session(file);
@@ -289,7 +280,7 @@ public static class NetlistLoader
                 {
                     JsonTree item = nodes.Value.Items[i];
                     if (item.Kind == JsonTreeKind.String && !string.IsNullOrWhiteSpace(item.Text))
-                        _nodeRefs.Add(new NodeRef(NormalizeNode(item.Text!), partId, index, $"{path}.nodes[{i}]", item.Line, item.Column));
+                        _nodeRefs.Add(new NodeRef(Ground.Normalize(item.Text!), partId, index, $"{path}.nodes[{i}]", item.Line, item.Column));
                 }
             }
             if (node.Property("pins") is { Value.Kind: JsonTreeKind.Object } pins)
@@ -297,7 +288,7 @@ public static class NetlistLoader
                 foreach (JsonTreeProperty p in pins.Value.Properties)
                 {
                     if (p.Value.Kind == JsonTreeKind.String && !string.IsNullOrWhiteSpace(p.Value.Text))
-                        _nodeRefs.Add(new NodeRef(NormalizeNode(p.Value.Text!), partId, index, $"{path}.pins.{p.Name}", p.Value.Line, p.Value.Column));
+                        _nodeRefs.Add(new NodeRef(Ground.Normalize(p.Value.Text!), partId, index, $"{path}.pins.{p.Name}", p.Value.Line, p.Value.Column));
                 }
             }
         }
@@ -338,7 +329,7 @@ public static class NetlistLoader
                         ok = false;
                         continue;
                     }
-                    string n = NormalizeNode(items[i].Text!);
+                    string n = Ground.Normalize(items[i].Text!);
                     _nodeRefs.Add(new NodeRef(n, partId, index, itemPath, items[i].Line, items[i].Column));
                     if (i < kind.Pins.Count) pins[kind.Pins[i]] = n;
                 }
@@ -386,7 +377,7 @@ public static class NetlistLoader
                     ok = false;
                     continue;
                 }
-                string n = NormalizeNode(p.Value.Text!);
+                string n = Ground.Normalize(p.Value.Text!);
                 pins[p.Name] = n;
                 _nodeRefs.Add(new NodeRef(n, partId, index, pinPath, p.Value.Line, p.Value.Column));
             }
@@ -642,13 +633,13 @@ public static class NetlistLoader
                 list.Add(r);
             }
 
-            if (!byNode.ContainsKey(Ground))
+            if (!byNode.ContainsKey(Ground.Node))
             {
                 Error(partsArray, "$.parts", null, "no part connects to ground",
                     "connect the supply's negative terminal (and every return) to \"gnd\"");
             }
 
-            List<string> publicNodes = byNode.Keys.Where(n => n != Ground && !_privateNodes.Contains(n)).ToList();
+            List<string> publicNodes = byNode.Keys.Where(n => n != Ground.Node && !_privateNodes.Contains(n)).ToList();
             foreach (string node in publicNodes)
             {
                 List<NodeRef> refs = byNode[node];
@@ -694,7 +685,7 @@ public static class NetlistLoader
             }
 
             // DC path to ground: union of nodes through parts that conduct at DC.
-            if (!byNode.ContainsKey(Ground)) return;
+            if (!byNode.ContainsKey(Ground.Node)) return;
             var dc = new UnionFind();
             foreach (IGrouping<int, NodeRef> part in _nodeRefs.GroupBy(r => r.PartIndex))
             {
@@ -703,7 +694,7 @@ public static class NetlistLoader
                 string first = part.First().Node;
                 foreach (NodeRef r in part) dc.Union(first, r.Node);
             }
-            string groundRoot = dc.Find(Ground);
+            string groundRoot = dc.Find(Ground.Node);
             foreach (IGrouping<string, string> island in byNode.Keys.Where(n => dc.Find(n) != groundRoot).GroupBy(dc.Find))
             {
                 List<string> names = island.Where(n => !_privateNodes.Contains(n)).ToList();

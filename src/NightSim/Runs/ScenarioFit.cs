@@ -1,3 +1,5 @@
+using NightSim.Devices;
+using NightSim.Devices.Roles;
 using NightSim.Netlist;
 using NightSim.Sky;
 using NightSim.Sky.Events;
@@ -11,14 +13,13 @@ namespace NightSim.Runs;
 /// </summary>
 public static class ScenarioFit
 {
-    private static readonly string[] s_sensorKinds = ["photoresistor", "phototransistor", "photodiode"];
-
     public static IReadOnlyList<string> Problems(NetlistDefinition net, LightScenario scenario, string netlistPath, string scenarioPath)
     {
         var problems = new List<string>();
         List<string> nodes = NightRun.NetlistNodes(net);
         var channels = scenario.Channels.Select(c => c.Name).ToList();
-        var relays = net.Parts.Where(p => p.Kind == "relay").Select(p => p.Id).ToList();
+        List<Device> devices = NightRun.CreateDevices(net);
+        var relays = devices.Where(d => d.Role is RelayCoilRole).Select(d => d.PartId).Distinct().ToList();
         for (int i = 0; i < scenario.Events.Count; i++)
         {
             string path = $"$.events[{i}]";
@@ -35,11 +36,11 @@ public static class ScenarioFit
                     break;
             }
         }
-        foreach (PartDefinition sensor in net.Parts.Where(p => s_sensorKinds.Contains(p.Kind)))
+        // Every light sensor, whatever its kind, states the channel it reads.
+        foreach (LightSensorRole sensor in devices.Select(d => d.Role).OfType<LightSensorRole>())
         {
-            string channel = sensor.Parameters.Text("channel", LightScenario.DefaultChannel);
-            if (!channels.Contains(channel))
-                problems.Add($"{netlistPath}: error at part {sensor.Id}: reads light channel '{channel}', which scenario {scenarioPath} does not define. hint: channels: {string.Join(", ", channels)}");
+            if (!channels.Contains(sensor.Channel))
+                problems.Add($"{netlistPath}: error at part {sensor.PartId}: reads light channel '{sensor.Channel}', which scenario {scenarioPath} does not define. hint: channels: {string.Join(", ", channels)}");
         }
         return problems;
     }

@@ -1,3 +1,4 @@
+using NightSim.Inputs;
 namespace NightSim.Sky;
 
 /// <summary>One problem found in a scenario or light-log file.</summary>
@@ -19,7 +20,7 @@ public sealed record ScenarioError(string File, string Path, string Message, str
 }
 
 /// <summary>Thrown when a scenario cannot be used; carries every problem found, not only the first.</summary>
-public sealed class ScenarioException : Netlist.InputFileException
+public sealed class ScenarioException : Inputs.InputFileException
 {
     public ScenarioException(IReadOnlyList<ScenarioError> errors)
         : base(string.Join(Environment.NewLine, errors.Select(e => e.ToString()))) => Errors = errors;

@@ -1,5 +1,5 @@
 using System.Text.Json;
-using NightSim.Netlist;
+using NightSim.Inputs;
 using NightSim.Reporting;
 
 namespace NightSim.Studies;

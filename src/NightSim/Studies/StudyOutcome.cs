@@ -1,3 +1,4 @@
+using NightSim.Analysis;
 using System.Text.Json;
 using NightSim.Reporting;
 using NightSim.Runs;

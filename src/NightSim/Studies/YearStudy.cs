@@ -1,3 +1,4 @@
+using NightSim.Analysis;
 using System.Globalization;
 using NightSim.Reporting;
 using NightSim.Runs;

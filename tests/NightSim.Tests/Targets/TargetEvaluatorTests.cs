@@ -1,3 +1,4 @@
+using NightSim.Analysis;
 using NightSim.Reporting;
 using NightSim.Sky;
 using NightSim.Targets;
