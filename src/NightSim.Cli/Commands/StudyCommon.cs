@@ -91,8 +91,8 @@ internal static class StudyCommon
         {
             var printer = progress ? new ProgressLines(what, error) : null;
             T?[] results = StudyRunner.Run(indices, work, workers ?? Environment.ProcessorCount, cts.Token, printer);
-            printer?.Done();
             var items = results.Where(r => r is not null).Select(r => r!).ToList();
+            printer?.Done(items.Count == indices.Count);
             return (items, items.Count == indices.Count);
         }
         finally
@@ -152,9 +152,9 @@ internal static class StudyCommon
             }
         }
 
-        public void Done()
+        public void Done(bool complete)
         {
-            if (_any) error.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{what}: done in {ReportText.Duration(Math.Round(_clock.Elapsed.TotalSeconds))}"));
+            if (_any) error.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{what}: {(complete ? "done" : "stopped")} after {ReportText.Duration(Math.Round(_clock.Elapsed.TotalSeconds))}"));
         }
     }
 }
