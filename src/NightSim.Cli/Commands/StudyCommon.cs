@@ -64,12 +64,12 @@ internal static class StudyCommon
         return new NightRunRequest { Netlist = loaded.Definition!, NetlistPath = netlistPath, Scenario = scenario, ScenarioPath = sc, Tool = Tool };
     }
 
-    /// <summary>Creates the output folder; a file in its place is bad input.</summary>
+    /// <summary>Creates the output folder; a file in its place, or a folder that cannot be made, is an output failure (exit 5).</summary>
     public static string OutDir(DirectoryInfo? given, string fallback)
     {
         string dir = (given ?? new DirectoryInfo(fallback)).FullName;
-        if (File.Exists(dir)) throw new StudyFileException([$"--out: {dir} is a file, not a folder. hint: give a folder name"]);
-        Directory.CreateDirectory(dir);
+        if (File.Exists(dir)) throw new OutputException(dir, new IOException("it is a file, not a folder"));
+        OutputException.Guard(dir, () => Directory.CreateDirectory(dir));
         return dir;
     }
 

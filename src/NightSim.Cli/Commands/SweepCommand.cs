@@ -51,11 +51,11 @@ internal static class SweepCommand
                         return StudyCommon.Interrupted;
                     }
                     string path = Path.Combine(dir, shard.FileName);
-                    ShardFile.Write(path, header, shard, done);
+                    OutputException.Guard(path, () => ShardFile.Write(path, header, shard, done));
                     output.WriteLine($"wrote {path} ({done.Count} of {study.Total} points); join the shards with: nightsim merge DIR... --out DIR");
                     return CliErrors.Success;
                 }
-                return Finish(header, request.Netlist, axes, done, complete, dir, pr.GetValue(o.Format)!, output, error);
+                return OutputException.Guard(dir, () => Finish(header, request.Netlist, axes, done, complete, dir, pr.GetValue(o.Format)!, output, error));
             }
             catch (UsageException u)
             {
