@@ -45,6 +45,11 @@ public sealed class StudyCommandTests
             Assert.True(m.Exit == 0, m.Err);
             AssertSameFiles(whole, merged, "spread.json", "spread.csv", "spread.html", "spread-on-time.svg");
             Studies.StudySchemas.AssertValid("spread", File.ReadAllBytes(Path.Combine(merged, "spread.json")));
+            // The page is self-contained and well-formed (inline SVG, no scripts, no external files).
+            string page = File.ReadAllText(Path.Combine(merged, "spread.html"));
+            System.Xml.Linq.XDocument.Parse(page.Replace("<!DOCTYPE html>", "", StringComparison.Ordinal));
+            Assert.DoesNotContain("<script", page, StringComparison.Ordinal);
+            Assert.Contains("<svg", page, StringComparison.Ordinal);
             // The worst runs are written as netlists simulate takes, each with its scenario beside it.
             string rerun = Directory.GetFiles(Path.Combine(merged, "runs"), "run-*.json").First(f => !f.EndsWith(".scenario.json", StringComparison.Ordinal));
             var again = Run("simulate", rerun, "--out", Path.Combine(root, "again"), "--no-plots", "--no-progress");
