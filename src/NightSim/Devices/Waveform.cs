@@ -143,6 +143,12 @@ public sealed class Waveform
     /// error estimate, so without this limit the step control would not see it at all.</summary>
     public double MaxStep => Shape == WaveformShape.Sine && _values[2] > 0 ? 1.0 / (StepsPerSinePeriod * _values[2]) : double.PositiveInfinity;
 
+    /// <summary>Frequency of a sine, hertz; 0 for every other shape.</summary>
+    public double SineFrequency => Shape == WaveformShape.Sine ? _values[2] : 0.0;
+
+    /// <summary>Start time of a sine (its phase origin), seconds; 0 for every other shape.</summary>
+    public double SineStart => Shape == WaveformShape.Sine ? _values[3] : 0.0;
+
     /// <summary>Value at run time <paramref name="time"/> (seconds), in the source's unit. Pure.</summary>
     public double Value(double time)
     {
