@@ -23,6 +23,9 @@ namespace NightSim.Transient;
 /// </remarks>
 public sealed partial class TransientSolver
 {
+    /// <summary>Per-cycle ratio of successive changes below which a state counts as settling, not drifting.</summary>
+    private const double SettlingRatio = 0.9;
+
     private double _envPeriod;
     private double _envOrigin;
     private double[] _envX0 = [], _envX1 = [], _envX2 = [];
@@ -144,11 +147,11 @@ public sealed partial class TransientSolver
         for (int i = 0; i < _n; i++)
         {
             double d1 = _envX0[i] - _envX1[i], d2 = _envX1[i] - _envX2[i];
-            // A state whose per-cycle change shrinks by more than half each cycle (or flips sign) is settling onto the
+            // A state whose per-cycle change shrinks by 10 % or more each cycle (or flips sign) is settling onto the
             // periodic solution: it is carried at its last boundary value plus the rest of its geometric decay
             // d1·ρ/(1 − ρ), and does not limit the jump. Every other state drifts and is extrapolated linearly.
             double rho = d2 != 0 ? d1 / d2 : 0.0;
-            _envSettling[i] = Math.Abs(rho) < 0.5 || rho < 0;
+            _envSettling[i] = rho < SettlingRatio;
             _envSlope[i] = _envSettling[i] ? (rho > 0 ? d1 * rho / (1.0 - rho) : 0.0) : 0.5 * (d1 + d2);
             if (_envSettling[i] || !_inNorm[i] || m < 2) continue;
             double slope = _envSlope[i];
