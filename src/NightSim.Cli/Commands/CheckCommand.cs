@@ -104,6 +104,7 @@ internal static class CheckCommand
         List<string> nodes = def.Parts.SelectMany(p => p.Pins.Values).Where(n => n != "0").Distinct().Order(StringComparer.Ordinal).ToList();
         output.WriteLine($"  nodes:    {nodes.Count} + ground ({string.Join(", ", nodes)})");
         output.WriteLine(result.Warnings.Count == 0 ? "  warnings: none" : $"  warnings: {result.Warnings.Count} (above)");
+        foreach (string caution in NightSim.Supply.MainsExposure.Cautions(def)) output.WriteLine("CAUTION: " + caution);
         if (loadedScenario is not null)
         {
             output.WriteLine($"  scenario: {loadedScenario.Name} ({scenario}): {loadedScenario.Site.Name}, {loadedScenario.Start.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)}, " +

@@ -109,13 +109,6 @@ public static class NightRun
         return list;
     }
 
-    /// <summary>True when the design touches mains: a relay switching a named load (the lamp), or a source of 50 V or
-    /// more (a dropper supply's mains feed).</summary>
-    public static bool TouchesMains(NetlistDefinition net) =>
-        net.Parts.Any(p => p.Kind == "relay" && p.Parameters.Has("load"))
-        || net.Parts.Any(p => p.Kind == "voltage-source" &&
-            (Math.Abs(p.Parameters.Number("dc", 0)) >= 50 || Math.Abs(p.Parameters.Object("sine")?.Number("amplitude", 0) ?? 0) >= 50));
-
     private static void AddNoise(LightProfile profile, List<Device> devices)
     {
         foreach (IGrouping<(string Node, NoiseQuantity Quantity), NoiseInjection> g in
@@ -195,7 +188,7 @@ public static class NightRun
             Findings = findings,
             Events = events,
             Statistics = new ReportStatistics(st.AcceptedSteps, st.RejectedSteps, st.NewtonIterations, st.Events, st.CpuSeconds),
-            Cautions = TouchesMains(request.Netlist) ? ReportText.MainsCautions : [],
+            Cautions = Supply.MainsExposure.Cautions(request.Netlist),
         };
     }
 }

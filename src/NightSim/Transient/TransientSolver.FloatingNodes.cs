@@ -7,8 +7,8 @@ namespace NightSim.Transient;
 /// every path from them to ground runs through a junction, which is off near each zero crossing. Their common-mode
 /// voltage is then set only by leakage and gmin — a near-singular algebraic mode that Newton cannot resolve at the
 /// moment the rectifier stops conducting. A real board has a small capacitance to earth; the solver gives each such
-/// node <see cref="TransientOptions.FloatingNodeCapacitance"/> to ground, so the mode holds its charge while the
-/// rectifier is off. Nodes with a resistive, source or capacitive path to ground are left as they are.
+/// group of such nodes <see cref="TransientOptions.FloatingNodeCapacitance"/> to ground on its stiffest node, so the
+/// mode holds its charge while the rectifier is off. Nodes with a resistive, source or capacitive path to ground are left as they are.
 /// </summary>
 /// <remarks>
 /// A minimum capacitance from every such node to ground is a usual aid of transient circuit solvers, beside gmin and
@@ -23,6 +23,7 @@ public sealed partial class TransientSolver
     private const double ConnectionCapacitance = 1e-15;
 
     private int[] _floatingNodes = [];
+    private bool[] _floorOnly = [];
     private int[] _floatingDiagonal = [];
 
     /// <summary>Node voltages that had no path to ground at power-up and carry the floor capacitance (labels).</summary>
@@ -45,12 +46,14 @@ public sealed partial class TransientSolver
 
         var neighbours = new List<int>[_n];
         for (int i = 0; i < _n; i++) neighbours[i] = [];
+        var ownCharge = new bool[_n];
         var toGroundG = new double[_n];
         var toGroundC = new double[_n];
         for (int s = 0; s < _slotRow.Length; s++)
         {
             int r = _slotRow[s], c = _slotCol[s];
             double g = _ctx.G[s], cap = _ctx.C[s];
+            if (cap != 0) ownCharge[r] = true;
             if (_circuit.Kinds[c] != UnknownKind.Branch)
             {
                 toGroundG[r] += g;
@@ -82,12 +85,51 @@ public sealed partial class TransientSolver
                 queue.Enqueue(j);
             }
         }
+        // One floor capacitance per floating group is enough to give its common mode a charge; it goes on the group's
+        // stiffest node (largest own capacitance, then conductance: the smoothing capacitor's rail), so high-impedance
+        // nodes of the group (sensor, trigger inputs) get no displacement current from the group's swings.
         int[] diag = _circuit.NodeDiagonal;
         var nodes = new List<int>();
-        for (int i = 0; i < _n; i++)
-            if (!reached[i] && diag[i] >= 0) nodes.Add(i);
+        var grouped = new bool[_n];
+        for (int start = 0; start < _n; start++)
+        {
+            if (reached[start] || grouped[start]) continue;
+            int best = -1;
+            double bestC = -1, bestG = -1;
+            grouped[start] = true;
+            queue.Enqueue(start);
+            while (queue.Count > 0)
+            {
+                int i = queue.Dequeue();
+                if (diag[i] >= 0)
+                {
+                    double c = Math.Abs(_ctx.C[diag[i]]), g = Math.Abs(_ctx.G[diag[i]]);
+                    if (c > bestC || (c == bestC && g > bestG)) (best, bestC, bestG) = (i, c, g);
+                }
+                foreach (int j in neighbours[i])
+                {
+                    if (reached[j] || grouped[j]) continue;
+                    grouped[j] = true;
+                    queue.Enqueue(j);
+                }
+            }
+            if (best >= 0) nodes.Add(best);
+        }
         _floatingNodes = [.. nodes];
         _floatingDiagonal = [.. nodes.Select(i => diag[i])];
+        _floorOnly = new bool[_n];
+        foreach (int i in nodes) _floorOnly[i] = !ownCharge[i];
+    }
+
+    /// <summary>
+    /// A floating node whose only charge is the floor capacitance stays out of the error norm (it is algebraic for the
+    /// circuit; held to a truncation-error bound, a node a comparator output drives through 100 Ω would force 1 ns
+    /// steps). Called right after the tolerances are set.
+    /// </summary>
+    private void ExcludeFloorOnlyNodesFromNorm()
+    {
+        foreach (int i in _floatingNodes)
+            if (_floorOnly[i]) _inNorm[i] = false;
     }
 
     /// <summary>Add the floor capacitance of the floating nodes to Q and C (inside <see cref="Evaluate"/>).</summary>

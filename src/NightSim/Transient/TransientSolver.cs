@@ -225,6 +225,7 @@ public sealed partial class TransientSolver
         Array.Copy(_ctx.Q, _q, _n);
         for (int i = 0; i < _n; i++) _qd[i] = -_ctx.J[i];
         SetTolerances();
+        ExcludeFloorOnlyNodesFromNorm();
         SetUpEnvelope();
         if (_options.Start == StartMode.PowerUp) _needRestart = !AlgebraicRowsSatisfied();
         RecordPoint();
