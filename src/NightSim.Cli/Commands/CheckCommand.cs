@@ -104,6 +104,7 @@ internal static class CheckCommand
         string shown = string.Join(", ", nodes.Take(20)) + (nodes.Count > 20 ? $", … and {nodes.Count - 20} more" : "");
         output.WriteLine($"  nodes:    {nodes.Count} + ground ({shown})");
         output.WriteLine(result.Warnings.Count == 0 ? "  warnings: none" : $"  warnings: {result.Warnings.Count} (above)");
+        foreach (string caution in NightSim.Supply.MainsExposure.Cautions(def)) output.WriteLine("CAUTION: " + caution);
         if (loadedScenario is not null)
         {
             output.WriteLine($"  scenario: {loadedScenario.Name} ({scenario}): {loadedScenario.Site.Name}, {loadedScenario.Start.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)}, " +

@@ -146,10 +146,7 @@ internal static class SimulateCommand
             return CliErrors.InvalidInput;
         }
         NetlistDefinition def = loaded.Definition!;
-        if (NightRun.TouchesMains(def))
-        {
-            foreach (string caution in ReportText.MainsCautions) output.WriteLine("CAUTION: " + caution);
-        }
+        foreach (string caution in NightSim.Supply.MainsExposure.Cautions(def)) output.WriteLine("CAUTION: " + caution);
 
         Circuit circuit = Circuit.Build(def);
         if (luxText is not null)

@@ -71,7 +71,7 @@ internal static class SpreadCommand
         TextWriter output, TextWriter error)
     {
         IReadOnlyList<Variation> variations = ToleranceModel.For(net);
-        var report = new SpreadReport(header, variations, runs, complete, NightRun.TouchesMains(net) ? ReportText.MainsCautions : []);
+        var report = new SpreadReport(header, variations, runs, complete, NightSim.Supply.MainsExposure.Cautions(net));
         var written = new List<string>();
         string? warning = null;
         var figures = new List<HtmlFigure>();

@@ -83,7 +83,7 @@ internal static class SweepCommand
     public static int Finish(StudyHeader header, NetlistDefinition net, IReadOnlyList<SweepAxis> axes, List<SweepPoint> points, bool complete, string dir,
         string format, TextWriter output, TextWriter error)
     {
-        var report = new SweepReport(header, axes, points, complete, NightRun.TouchesMains(net) ? ReportText.MainsCautions : []);
+        var report = new SweepReport(header, axes, points, complete, NightSim.Supply.MainsExposure.Cautions(net));
         var written = new List<string>();
         string? warning = null;
         var figures = new List<HtmlFigure>();

@@ -78,7 +78,7 @@ internal static class YearCommand
 
     public static int Finish(StudyHeader header, NetlistDefinition net, List<YearNight> nights, bool complete, string dir, string format, TextWriter output, TextWriter error)
     {
-        var report = new YearReport(header, nights, complete, NightRun.TouchesMains(net) ? ReportText.MainsCautions : []);
+        var report = new YearReport(header, nights, complete, NightSim.Supply.MainsExposure.Cautions(net));
         var written = new List<string>();
         string? warning = null;
         var figures = new List<HtmlFigure>

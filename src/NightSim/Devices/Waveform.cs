@@ -143,14 +143,22 @@ public sealed class Waveform
     /// error estimate, so without this limit the step control would not see it at all.</summary>
     public double MaxStep => Shape == WaveformShape.Sine && _values[2] > 0 ? 1.0 / (StepsPerSinePeriod * _values[2]) : double.PositiveInfinity;
 
-    /// <summary>Value at run time <paramref name="time"/> (seconds), in the source's unit. Pure.</summary>
-    /// <summary>The largest magnitude the waveform reaches, in its unit.</summary>
+    /// <summary>The largest magnitude the waveform reaches, in its unit: |offset| + |amplitude| for a sine, the larger
+    /// level of a pulse, the largest point of a piecewise-linear waveform.</summary>
     public double PeakMagnitude => Shape switch
     {
         WaveformShape.Sine => Math.Abs(_values[0]) + Math.Abs(_values[1]),
+        WaveformShape.Pulse => Math.Max(Math.Abs(_values[0]), Math.Abs(_values[1])),
         _ => _values.Length == 0 ? 0.0 : _values.Max(Math.Abs),
     };
 
+    /// <summary>Frequency of a sine, hertz; 0 for every other shape.</summary>
+    public double SineFrequency => Shape == WaveformShape.Sine ? _values[2] : 0.0;
+
+    /// <summary>Start time of a sine (its phase origin), seconds; 0 for every other shape.</summary>
+    public double SineStart => Shape == WaveformShape.Sine ? _values[3] : 0.0;
+
+    /// <summary>Value at run time <paramref name="time"/> (seconds), in the source's unit. Pure.</summary>
     public double Value(double time)
     {
         switch (Shape)

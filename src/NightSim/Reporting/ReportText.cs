@@ -35,6 +35,16 @@ public static class ReportText
         "NightSim is not a safety assessment. Follow your local electrical codes, and have mains wiring done or checked by a licensed electrician.",
     ];
 
+    /// <summary>The cautions of a low-voltage design whose relay switches a mains lamp (the circuit itself is not on
+    /// the mains, its contacts and the lamp wiring are).</summary>
+    public static readonly IReadOnlyList<string> ContactCautions =
+    [
+        "The circuit runs from a low voltage, but its relay switches a mains lamp: the relay contacts, their terminals and the lamp wiring carry a lethal voltage.",
+        "Use a relay whose contacts are rated for the mains voltage and the lamp's current (inrush included), keep mains wiring apart from the low-voltage side with the clearance its rating asks, and fuse the lamp circuit.",
+        "Build it into a closed, insulating enclosure and never touch the contact side while it is connected.",
+        "NightSim is not a safety assessment. Follow your local electrical codes, and have mains wiring done or checked by a licensed electrician.",
+    ];
+
     /// <summary>
     /// The night as tables show it: at most <paramref name="maxRows"/> on-intervals, the rest folded into one row that
     /// says how many more there were (a chattering relay gives thousands; report.json keeps them all).

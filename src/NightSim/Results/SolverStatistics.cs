@@ -28,6 +28,12 @@ public sealed class SolverStatistics
     /// <summary>Discrete events fired.</summary>
     public long Events { get; internal set; }
 
+    /// <summary>Envelope jumps taken (envelope following only).</summary>
+    public long EnvelopeJumps { get; internal set; }
+
+    /// <summary>Periods of the periodic source skipped by envelope jumps.</summary>
+    public long SkippedCycles { get; internal set; }
+
     /// <summary>Breakpoints landed on exactly.</summary>
     public long Breakpoints { get; internal set; }
 

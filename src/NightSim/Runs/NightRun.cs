@@ -110,11 +110,6 @@ public static class NightRun
         return list;
     }
 
-    /// <summary>True when the design touches mains: some part's kind says it faces mains (a relay switching a named
-    /// load, a mains-level source).</summary>
-    public static bool TouchesMains(NetlistDefinition net) =>
-        net.Parts.Any(p => PartCatalog.Find(p.Kind)?.FacesMains(p) == true);
-
     /// <summary>The engine devices of a validated netlist, in netlist order.</summary>
     /// <exception cref="RunInputException">A part kind is not registered.</exception>
     public static List<Device> CreateDevices(NetlistDefinition net)
@@ -209,7 +204,7 @@ public static class NightRun
             Findings = findings,
             Events = events,
             Statistics = new ReportStatistics(st.AcceptedSteps, st.RejectedSteps, st.NewtonIterations, st.Events, st.CpuSeconds),
-            Cautions = TouchesMains(request.Netlist) ? ReportText.MainsCautions : [],
+            Cautions = Supply.MainsExposure.Cautions(request.Netlist),
             Targets = targets,
             TargetResults = checks,
             Overview = NightsOverview.Build(analysis.Nights, checks),

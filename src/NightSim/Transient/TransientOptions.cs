@@ -62,6 +62,27 @@ public sealed record TransientOptions
     /// <summary>Junction shunt conductance, siemens.</summary>
     public double Gmin { get; init; } = 1e-12;
 
+    /// <summary>Capacitance to ground given to every node with no conductive or capacitive path to ground at power-up
+    /// (the DC side of a bridge whose AC side is grounded), farads; 0 = none.</summary>
+    public double FloatingNodeCapacitance { get; init; } = 10e-12;
+
+    /// <summary>Envelope following: when every periodic source shares one frequency (a mains sine), jump many cycles
+    /// forward along the per-cycle change of the state between windows of full detail (docs/supply.md).</summary>
+    public bool EnvelopeFollowing { get; init; }
+
+    /// <summary>Envelope tolerance: the curvature error of a jump, m²/2·|second difference|, is kept within this fraction
+    /// of each state's scale (|x| + 1 V, or |x| + 1 mA for currents).</summary>
+    public double EnvelopeTolerance { get; init; } = 1e-3;
+
+    /// <summary>Largest change of any state in one jump, as a fraction of its scale (|x| + 1 V).</summary>
+    public double EnvelopeMaxChange { get; init; } = 0.05;
+
+    /// <summary>Longest jump, seconds.</summary>
+    public double EnvelopeMaxJump { get; init; } = 3600.0;
+
+    /// <summary>Full detail kept after power-up, every event and every breakpoint before the next jump, seconds.</summary>
+    public double EnvelopeDetailWindow { get; init; } = 1.0;
+
     /// <summary>How the run starts.</summary>
     public StartMode Start { get; init; } = StartMode.PowerUp;
 

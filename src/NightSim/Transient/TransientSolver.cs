@@ -207,6 +207,7 @@ public sealed partial class TransientSolver
                 _x[i] = v;
             }
         ApplyCapacitorStartVoltages();
+        FindFloatingNodes();
 
         _ctx.SourceScale = SourceScaleAt(0.0);
         if (_options.Start == StartMode.OperatingPoint)
@@ -228,6 +229,8 @@ public sealed partial class TransientSolver
         Array.Copy(_ctx.Q, _q, _n);
         for (int i = 0; i < _n; i++) _qd[i] = -_ctx.J[i];
         SetTolerances();
+        ExcludeFloorOnlyNodesFromNorm();
+        SetUpEnvelope();
         if (_options.Start == StartMode.PowerUp) _needRestart = !AlgebraicRowsSatisfied();
         RecordPoint(keepRow: true);
         EvaluateEvents(_x, 0.0, _gNew, _gOld);
@@ -270,6 +273,7 @@ public sealed partial class TransientSolver
         if (_failure is not null) return false;
         double t = _time.Value;
         if (t >= _stop) return false;
+        if (TryEnvelopeJump()) return _time.Value < _stop;
         // Smallest step: a couple of ulps of the absolute time, so that t + γh is still a distinct time for the devices;
         // the step itself is carried exactly (SimTime keeps the rounding). 16 ulps (6e-11 s five hours into a night)
         // was too coarse for a transistor discharging a coil's winding capacitance in 2 ns.
@@ -485,6 +489,7 @@ public sealed partial class TransientSolver
             EvaluateEvents(_x, tNow, _gNew, _gOld);
             Array.Copy(_gNew, _gOld, _gOld.Length);
         }
+        EnvelopeObserve(!double.IsNaN(landAt));
         Accepted?.Invoke(this);
     }
 
@@ -712,6 +717,7 @@ public sealed partial class TransientSolver
         Array.Clear(_ctx.G);
         Array.Clear(_ctx.C);
         foreach (Device d in _devices) d.Load(_ctx);
+        if (_floatingNodes.Length > 0) LoadFloatingNodeCapacitance();
         if (_opGmin > 0)
         {
             int[] diag = _circuit.NodeDiagonal;
@@ -817,7 +823,7 @@ public sealed partial class TransientSolver
             if (b > t + tiny && b < bp) bp = b;
         }
         double r = _requested.NextAfter(t + tiny);
-        return Math.Min(bp, r);
+        return Math.Min(Math.Min(bp, r), EnvelopeBoundaryAfter(t, tiny));
     }
 
     // ---------------------------------------------------------------- recorder and diagnostics
