@@ -10,5 +10,6 @@ public static class AnalyzerCatalog
         new ChatterAnalyzer(),
         new TimerAnalyzer(),
         new StageAnalyzer(),
+        new DischargeCurrentAnalyzer(),
     ];
 }
