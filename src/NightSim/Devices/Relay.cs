@@ -166,9 +166,12 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         _contactSlots = new PairSlots[_contacts.Length];
         // The analysis compares coil voltages: at the coil's temperature the same currents need R(T)/R20 more volts.
         double hot = settings.HotCoilResistance;
-        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullInCurrent * hot, settings.DropOutCurrent * hot, hot);
+        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullInCurrent * hot, settings.DropOutCurrent * hot, hot, CoilCurrentLabel(name));
         PowerUp();
     }
+
+    /// <summary>Label of the coil-current unknown of a relay device named <paramref name="name"/>.</summary>
+    public static string CoilCurrentLabel(string name) => name + ".i";
 
     private static List<string> BuildNodes(string a, string b, IReadOnlyList<RelayContact> contacts)
     {
@@ -263,7 +266,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
 
     public override void Setup(SetupContext setup)
     {
-        _coil = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), Name + ".i");
+        _coil = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), CoilCurrentLabel(Name));
         _sBrBr = setup.Slot(_coil.K, _coil.K);
         for (int k = 0; k < _contacts.Length; k++)
         {
