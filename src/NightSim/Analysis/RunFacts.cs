@@ -48,6 +48,13 @@ public sealed record TimerFacts(string PartId, double Resistance, double Capacit
     /// plain R from the supply.</summary>
     public double? OpenVoltage { get; init; }
 
+    /// <summary>Catalogue leakage limit of the timing electrolytic(s) (IEC 60384-4), A; NaN when none is an
+    /// electrolytic with a rated voltage.</summary>
+    public double LeakageLimit { get; init; } = double.NaN;
+
+    /// <summary>Part id of the timing capacitor (the first, when several are in parallel), or null.</summary>
+    public string? CapacitorId { get; init; }
+
     /// <summary>True for a CMOS timer (its input current is already negligible).</summary>
     public bool IsCmos { get; init; }
 

@@ -110,6 +110,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     private static readonly ParameterSpec s_coilInductance = ParameterSpec.Number("coilInductance", "H", "Coil inductance") with { Default = s_defaults.CoilInductance, Min = 1e-9, Max = 1e3 };
     private static readonly ParameterSpec s_pullIn = ParameterSpec.Number("pullIn", "V", "Pull-in coil voltage at 20 °C (default: a fraction of ratedVoltage, see thresholds)") with { Min = 1e-3, Max = 1e4 };
     private static readonly ParameterSpec s_dropOut = ParameterSpec.Number("dropOut", "V", "Drop-out coil voltage at 20 °C, above 0 V (a relay at 0 V would never release) (default: a fraction of ratedVoltage, see thresholds)") with { Min = 1e-3, Max = 1e4 };
+    private static readonly ParameterSpec s_thresholdTolerance = ParameterSpec.Number("thresholdTolerance", "", "Relative spread of pullIn and dropOut between parts, for `nightsim spread`.") with { Default = 0.1, Min = 0, Max = 0.5 };
     private static readonly ParameterSpec s_operateTime = ParameterSpec.Number("operateTime", "s", "Armature travel time after pull-in") with { Default = s_defaults.OperateTime, Min = 0, Max = 10 };
     private static readonly ParameterSpec s_releaseTime = ParameterSpec.Number("releaseTime", "s", "Armature travel time after drop-out") with { Default = s_defaults.ReleaseTime, Min = 0, Max = 10 };
     private static readonly ParameterSpec s_contactResistance = ParameterSpec.Number("contactResistance", "Ω", "Closed contact resistance") with { Default = s_defaults.ContactResistance, Min = 1e-6, Max = 1e3 };
@@ -126,7 +127,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         Pins = ["coilA", "coilB", "com", "no", "nc", "com2", "no2", "nc2"],
         OptionalPins = ["com", "no", "nc", "com2", "no2", "nc2"],
         PinsThatMustDiffer = ["coilA", "coilB"],
-        Parameters = [s_coilResistance, s_coilInductance, s_ratedVoltage, s_thresholds, s_pullIn, s_dropOut, s_coilTemperature, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact],
+        Parameters = [s_coilResistance, s_coilInductance, s_ratedVoltage, s_thresholds, s_pullIn, s_dropOut, s_coilTemperature, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact, s_thresholdTolerance],
         Check = CheckDefinition,
         FacesMains = part => part.Parameters.Has(s_load.Name),
         Create = part => [FromDefinition(part)],
@@ -214,6 +215,16 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     }
 
     private static bool Worst(PartParameters p) => p.TextOrDefault(s_thresholds) == "worst";
+
+    /// <summary>The pull-in ("pullIn") or drop-out ("dropOut") voltage at 20 °C a relay part uses: given, or the
+    /// fraction of its rated voltage its <c>thresholds</c> choose, V. For studies that vary them.</summary>
+    /// <exception cref="KeyNotFoundException">Neither name.</exception>
+    public static double EffectiveThreshold(PartDefinition part, string name) => name switch
+    {
+        "pullIn" => PullInOf(part.Parameters),
+        "dropOut" => DropOutOf(part.Parameters),
+        _ => throw new KeyNotFoundException($"relay has no threshold '{name}'"),
+    };
 
     /// <summary>Pull-in voltage at 20 °C: given, or the typical or must-operate fraction of the rated voltage, V.</summary>
     private static double PullInOf(PartParameters p) =>

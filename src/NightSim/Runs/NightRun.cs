@@ -6,6 +6,7 @@ using NightSim.Reporting;
 using NightSim.Results;
 using NightSim.Sky;
 using NightSim.Sky.Events;
+using NightSim.Targets;
 using NightSim.Transient;
 using NightSim.Units;
 using NightSim.Mna;
@@ -193,6 +194,8 @@ public static class NightRun
             findings.Insert(0, new Finding(Severity.Error, "simulation-failed", $"The simulation stopped at {ReportText.Clock(facts.Clock(f.Time))}: {f.Reason}", f.Hint));
         }
         SolverStatistics st = sim.Statistics;
+        DesignTargets? targets = request.Scenario?.Targets;
+        IReadOnlyList<NightTargets> checks = targets is null ? [] : analysis.Nights.Select(n => TargetEvaluator.Evaluate(targets, n)).ToList();
         return new NightReport
         {
             Tool = request.Tool,
@@ -207,6 +210,9 @@ public static class NightRun
             Events = events,
             Statistics = new ReportStatistics(st.AcceptedSteps, st.RejectedSteps, st.NewtonIterations, st.Events, st.CpuSeconds),
             Cautions = TouchesMains(request.Netlist) ? ReportText.MainsCautions : [],
+            Targets = targets,
+            TargetResults = checks,
+            Overview = NightsOverview.Build(analysis.Nights, checks),
         };
     }
 }

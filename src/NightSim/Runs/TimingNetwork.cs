@@ -57,7 +57,7 @@ public static class TimingNetwork
         if (Boundary(timer.Threshold)) return null;
         // Interior nodes: reachable from the start node (index 0) through linear elements without crossing a boundary
         // node; the linear elements met on the way state themselves to the collector.
-        (Dictionary<string, int> Index, Collector Net) Network(string start, Func<string, bool> boundary)
+        (Dictionary<string, int> Index, Collector Net, HashSet<Device> Elements) Network(string start, Func<string, bool> boundary)
         {
             var net = new Collector();
             var interior = new List<string> { start };
@@ -77,9 +77,9 @@ public static class TimingNetwork
                 }
             }
             foreach (Device d in elements) ((IDcElement)d).StampDc(net);
-            return (found, net);
+            return (found, net, elements);
         }
-        (Dictionary<string, int> index, Collector collector) = Network(timer.Threshold, Boundary);
+        (Dictionary<string, int> index, Collector collector, HashSet<Device> elements) = Network(timer.Threshold, Boundary);
 
         double capacitance = 0;
         foreach ((string a, string b, double c) in collector.Capacitors)
@@ -107,12 +107,17 @@ public static class TimingNetwork
         }
         else if (!Boundary(timer.Discharge))
         {
-            (Dictionary<string, int> pinIndex, Collector pinNet) = Network(timer.Discharge, n => n == timer.Threshold || Boundary(n));
+            (Dictionary<string, int> pinIndex, Collector pinNet, _) = Network(timer.Discharge, n => n == timer.Threshold || Boundary(n));
             if (Thevenin(pinNet, pinIndex, n => n == timer.Threshold ? vThreshold : nodeVoltage(n), includeDrains: false) is (double vPin, double rPin))
                 discharge = new DischargeFacts(vPin, rPin, timer.DischargeResistance, timer.DischargeCurrentLimit, timer.DischargeSafeCurrent);
         }
+        // The timing electrolytics' catalogue leakage limits (parts as bought), for the worst-case check.
+        var timingCaps = elements.OfType<Capacitor>().Where(c => c.Nodes.Contains(timer.Threshold)).ToList();
+        var limits = timingCaps.Select(c => c.CatalogueLeakageLimit).Where(l => !double.IsNaN(l)).ToList();
         return new TimerFacts(timer.PartId, r0, capacitance, vs, drain, leakage)
         {
+            LeakageLimit = limits.Count > 0 ? limits.Sum() : double.NaN,
+            CapacitorId = timingCaps.FirstOrDefault()?.PartId,
             OpenVoltage = v0,
             IsCmos = timer.Family == TimerFamily.Cmos,
             Discharge = discharge,
