@@ -11,5 +11,6 @@ public static class AnalyzerCatalog
         new TimerAnalyzer(),
         new LeakageLimitAnalyzer(),
         new StageAnalyzer(),
+        new DischargeCurrentAnalyzer(),
     ];
 }

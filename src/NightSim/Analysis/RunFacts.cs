@@ -58,6 +58,10 @@ public sealed record TimerFacts(string PartId, double Resistance, double Capacit
     /// <summary>True for a CMOS timer (its input current is already negligible).</summary>
     public bool IsCmos { get; init; }
 
+    /// <summary>The timing capacitor's dump through the discharge transistor when the one-shot ends, or null when the
+    /// discharge pin's network is not a linear one.</summary>
+    public DischargeFacts? Discharge { get; init; }
+
     /// <summary>The voltage the capacitor charges toward without drains, V.</summary>
     public double ChargeVoltage => OpenVoltage ?? SupplyVoltage;
 
@@ -93,6 +97,32 @@ public sealed record TimerFacts(string PartId, double Resistance, double Capacit
             return rPar * Capacitance * Math.Log(vInf / (vInf - vTh));
         }
     }
+}
+
+/// <summary>The timing capacitor dumped through the timer's discharge transistor when the one-shot ends: the network
+/// at the discharge pin (timing capacitor at the threshold) as a source <see cref="Voltage"/> behind
+/// <see cref="PathResistance"/>, into the transistor's on-resistance.</summary>
+/// <param name="Voltage">Open-circuit voltage at the discharge pin when the transistor switches on, V (the threshold
+/// voltage when the pin is tied to the capacitor).</param>
+/// <param name="PathResistance">Resistance in series with the transistor (Thevenin, at the pin), Ω; 0 when the pin is
+/// tied to the capacitor.</param>
+/// <param name="OnResistance">The transistor's on-resistance, Ω.</param>
+/// <param name="CurrentLimit">Most current the transistor conducts, A.</param>
+/// <param name="SafeCurrent">Peak current it takes safely again and again, A.</param>
+public sealed record DischargeFacts(double Voltage, double PathResistance, double OnResistance, double CurrentLimit, double SafeCurrent)
+{
+    /// <summary>Peak current the circuit would push through the on-resistance, A: V/(R_path + R_on) (Ohm's law at the
+    /// instant the capacitor starts to discharge).</summary>
+    public double CircuitPeak => Voltage / (PathResistance + OnResistance);
+
+    /// <summary>Peak current the transistor carries: the circuit's peak, no more than its own limit, A.</summary>
+    public double PeakCurrent => Math.Min(CircuitPeak, CurrentLimit);
+
+    /// <summary>True when the transistor carries more than its safe current at the dump.</summary>
+    public bool AboveSafe => PeakCurrent > SafeCurrent;
+
+    /// <summary>Series resistance that brings the peak down to the safe current, Ω: V/I_safe − R_on − R_path.</summary>
+    public double SeriesResistanceNeeded => Math.Max(0.0, Voltage / SafeCurrent - OnResistance - PathResistance);
 }
 
 /// <summary>A relay coil as the analysis sees it.</summary>

@@ -30,8 +30,9 @@ public sealed record ComparatorSettings(
 
 /// <summary>
 /// Voltage comparator with hysteresis, optional response delay and a finite output transition.
-/// Pins: plus, minus, output, vcc, gnd. Output: push-pull Norton stage referenced to the supply pins
-/// (<see cref="SupplyOutput"/>) or an open collector to gnd.
+/// Pins: plus, minus, output, vcc, gnd. Output: an open collector to gnd (the netlist default: the usual comparator
+/// part, common practice) or a push-pull Norton stage referenced to the supply pins (<see cref="SupplyOutput"/>).
+/// <see cref="ComparatorSettings"/> keeps push-pull as its own default for the logic comparators inside composite parts.
 /// </summary>
 /// <remarks>
 /// Event 0 (input): with d = V+ − V− − offset, while the decided state is low g = d − hys/2, while high g = −(d + hys/2);
@@ -44,7 +45,11 @@ public sealed class Comparator : Device, IEventSource, ILogicLevel
 {
     private static readonly ParameterSpec s_hysteresis = ParameterSpec.Number("hysteresis", "V", "Full hysteresis width (thresholds at offset ± half of it)") with { Default = 1e-3, Min = 0, Max = 100 };
     private static readonly ParameterSpec s_offset = ParameterSpec.Number("offset", "V", "Switching point: output high when V+ − V− exceeds it") with { Default = 0.0, Min = -1000, Max = 1000 };
-    private static readonly ParameterSpec s_output = ParameterSpec.Word("outputType", "Output stage", "push-pull", "open-collector") with { DefaultText = "push-pull" };
+    // Open collector by default: the dual and quad comparators used as dusk detectors have an open-collector output
+    // that needs a pull-up resistor (common practice).
+    private static readonly ParameterSpec s_output = ParameterSpec.Word("outputType",
+        "Output stage: open-collector (default: the usual comparator part, which needs a pull-up resistor to the supply; common practice) or push-pull",
+        "open-collector", "push-pull") with { DefaultText = "open-collector" };
     private static readonly ParameterSpec s_outputResistance = ParameterSpec.Number("outputResistance", "Ω", "Output resistance (open collector: when on)") with { Default = 100.0, Min = 1e-3, Max = 1e9 };
     private static readonly ParameterSpec s_offResistance = ParameterSpec.Number("offResistance", "Ω", "Open-collector output resistance when off") with { Default = 1e9, Min = 1.0, Max = 1e15 };
     private static readonly ParameterSpec s_delay = ParameterSpec.Number("delay", "s", "Response delay from input crossing to output change (inertial)") with { Default = 0.0, Min = 0, Max = 1e4 };

@@ -4,11 +4,12 @@ using NightSim.Netlist;
 
 namespace NightSim.Devices;
 
-/// <summary>Settings of a <see cref="Relay"/> (SI units).</summary>
-/// <param name="CoilResistance">Coil resistance, Ω.</param>
+/// <summary>Settings of a <see cref="Relay"/> (SI units, temperatures in °C).</summary>
+/// <param name="CoilResistance">Coil resistance at the reference temperature (20 °C), Ω.</param>
 /// <param name="CoilInductance">Coil inductance, H.</param>
-/// <param name="PullIn">Pull-in (must-operate) voltage, V; the coil pulls in when |i| reaches PullIn / CoilResistance.</param>
-/// <param name="DropOut">Drop-out (must-release) voltage, V; it releases when |i| falls to DropOut / CoilResistance.</param>
+/// <param name="PullIn">Pull-in coil voltage at 20 °C, V; the coil pulls in when |i| reaches PullIn / CoilResistance
+/// (the ampere-turns the armature needs do not change with temperature).</param>
+/// <param name="DropOut">Drop-out coil voltage at 20 °C, V; it releases when |i| falls to DropOut / CoilResistance.</param>
 /// <param name="OperateTime">Armature travel time from pull-in to contacts changed over, s.</param>
 /// <param name="ReleaseTime">Armature travel time from drop-out to contacts back, s.</param>
 /// <param name="ContactResistance">Closed contact resistance, Ω.</param>
@@ -17,11 +18,13 @@ namespace NightSim.Devices;
 /// <param name="LoadName">Name of a switched load, or null.</param>
 /// <param name="LoadPower">Load power when on, W.</param>
 /// <param name="LoadNormallyClosed">True when the named load is on while the relay is released.</param>
+/// <param name="CoilTemperature">Coil (copper) temperature, °C: the coil resistance is
+/// CoilResistance·(1 + 0.00393/K·(T − 20 °C)).</param>
 public sealed record RelaySettings(
     double CoilResistance = 400.0,
     double CoilInductance = 0.5,
-    double PullIn = 9.0,
-    double DropOut = 1.2,
+    double PullIn = Relay.TypicalPullInFraction * Relay.DefaultRatedVoltage,
+    double DropOut = Relay.TypicalDropOutFraction * Relay.DefaultRatedVoltage,
     double OperateTime = 3e-3,
     double ReleaseTime = 2e-3,
     double ContactResistance = 0.05,
@@ -29,7 +32,18 @@ public sealed record RelaySettings(
     double Transition = 1e-6,
     string? LoadName = null,
     double LoadPower = 0.0,
-    bool LoadNormallyClosed = false);
+    bool LoadNormallyClosed = false,
+    double CoilTemperature = Relay.ReferenceTemperature)
+{
+    /// <summary>Coil resistance at <see cref="CoilTemperature"/>, Ω.</summary>
+    public double HotCoilResistance => Relay.CoilResistanceAt(CoilResistance, CoilTemperature);
+
+    /// <summary>Coil current at which the armature pulls in, A.</summary>
+    public double PullInCurrent => PullIn / CoilResistance;
+
+    /// <summary>Coil current at which the armature drops out, A.</summary>
+    public double DropOutCurrent => DropOut / CoilResistance;
+}
 
 /// <summary>One contact: a switch between two nodes, normally open or normally closed.</summary>
 /// <param name="Label">Name in the event log ("no", "nc2").</param>
@@ -49,17 +63,53 @@ public sealed record RelayContact(string Label, string A, string B, bool Normall
 /// rated voltages are converted with the coil resistance (steady state). Event 0: |i| − I_pull while released,
 /// I_drop − |i| while pulled in (negative while consistent). Event 1: t − t_due while the armature is travelling, −1
 /// otherwise. Contacts stamp the same slots in both states; their conductance blends geometrically over the transition.
-/// Default values are those of a generic 12 V relay class (400 Ω, pull-in 9.0 V, drop-out 1.2 V, operate ≤ 10 ms,
-/// release ≤ 5 ms: common practice for the class; 0.5 H from memory).
+/// Default values are those of a generic 12 V relay class (400 Ω, operate ≤ 10 ms, release ≤ 5 ms: common practice for
+/// the class; 0.5 H from memory). Pull-in and drop-out, when not given, are fractions of <c>ratedVoltage</c>: typical
+/// pull-in 70 % and drop-out 20 % (common practice, from memory: measured parts pull in at about 50–75 % and drop out
+/// at 10–40 %), or with <c>thresholds</c> "worst" the limits of the class, must-operate 75 % (most) and must-release
+/// 10 % (least) (common practice). Coil data are given at 20 °C (common practice); the coil is copper, whose
+/// resistance rises by 0.00393 per kelvin at 20 °C (IEC 60028, International Standard of Resistance for Copper), so a
+/// hot coil draws less current and needs more voltage to pull in.
 /// </remarks>
 public sealed class Relay : Device, IEventSource, ISwitchedLoad
 {
-    // The defaults are written once, in RelaySettings; the netlist parameters take theirs from there.
+    /// <summary>Rated coil voltage when none is given, V (the generic 12 V class).</summary>
+    public const double DefaultRatedVoltage = 12.0;
+
+    /// <summary>Typical pull-in as a fraction of the rated coil voltage (common practice, from memory).</summary>
+    public const double TypicalPullInFraction = 0.70;
+
+    /// <summary>Typical drop-out as a fraction of the rated coil voltage (common practice, from memory).</summary>
+    public const double TypicalDropOutFraction = 0.20;
+
+    /// <summary>Must-operate limit: the class is guaranteed to pull in at this fraction of rated (common practice).</summary>
+    public const double MustOperateFraction = 0.75;
+
+    /// <summary>Must-release limit: the class is guaranteed to drop out at this fraction of rated (common practice).</summary>
+    public const double MustReleaseFraction = 0.10;
+
+    /// <summary>Temperature at which coil data are given, °C (common practice).</summary>
+    public const double ReferenceTemperature = 20.0;
+
+    /// <summary>Temperature coefficient of resistance of annealed copper at 20 °C, 1/K (IEC 60028, International
+    /// Standard of Resistance for Copper).</summary>
+    public const double CopperCoefficient = 0.00393;
+
+    /// <summary>Coil resistance at <paramref name="celsius"/>: R20·(1 + 0.00393/K·(T − 20 °C)), Ω.</summary>
+    public static double CoilResistanceAt(double r20, double celsius) => r20 * (1.0 + CopperCoefficient * (celsius - ReferenceTemperature));
+
+    // The defaults are written once, in RelaySettings and the constants above; the netlist parameters take theirs from there.
     private static readonly RelaySettings s_defaults = new();
-    private static readonly ParameterSpec s_coilResistance = ParameterSpec.Number("coilResistance", "Ω", "Coil resistance") with { Default = s_defaults.CoilResistance, Min = 1e-3, Max = 1e7 };
+    private static readonly ParameterSpec s_ratedVoltage = ParameterSpec.Number("ratedVoltage", "V", "Rated (nominal) coil voltage; pullIn and dropOut default to fractions of it") with { Default = DefaultRatedVoltage, Min = 1e-2, Max = 1e3 };
+    private static readonly ParameterSpec s_thresholds = ParameterSpec.Word("thresholds",
+        "Which pull-in and drop-out the rated voltage gives when they are not set: typical (pull-in 70 %, drop-out 20 % of rated; common practice, from memory) or worst (must-operate 75 %, must-release 10 %: the limits of the class; common practice)",
+        "typical", "worst") with { DefaultText = "typical" };
+    private static readonly ParameterSpec s_coilTemperature = ParameterSpec.Number("coilTemperature", "°C",
+        "Coil temperature; the copper coil's resistance is coilResistance·(1 + 0.00393/K·(T − 20 °C)) (IEC 60028)") with { Default = ReferenceTemperature, Min = -60, Max = 200 };
+    private static readonly ParameterSpec s_coilResistance = ParameterSpec.Number("coilResistance", "Ω", "Coil resistance at 20 °C") with { Default = s_defaults.CoilResistance, Min = 1e-3, Max = 1e7 };
     private static readonly ParameterSpec s_coilInductance = ParameterSpec.Number("coilInductance", "H", "Coil inductance") with { Default = s_defaults.CoilInductance, Min = 1e-9, Max = 1e3 };
-    private static readonly ParameterSpec s_pullIn = ParameterSpec.Number("pullIn", "V", "Pull-in (must-operate) coil voltage") with { Default = s_defaults.PullIn, Min = 1e-3, Max = 1e4 };
-    private static readonly ParameterSpec s_dropOut = ParameterSpec.Number("dropOut", "V", "Drop-out (must-release) coil voltage; above 0 V (a relay at 0 V would never release)") with { Default = s_defaults.DropOut, Min = 1e-3, Max = 1e4 };
+    private static readonly ParameterSpec s_pullIn = ParameterSpec.Number("pullIn", "V", "Pull-in coil voltage at 20 °C (default: a fraction of ratedVoltage, see thresholds)") with { Min = 1e-3, Max = 1e4 };
+    private static readonly ParameterSpec s_dropOut = ParameterSpec.Number("dropOut", "V", "Drop-out coil voltage at 20 °C, above 0 V (a relay at 0 V would never release) (default: a fraction of ratedVoltage, see thresholds)") with { Min = 1e-3, Max = 1e4 };
     private static readonly ParameterSpec s_thresholdTolerance = ParameterSpec.Number("thresholdTolerance", "", "Relative spread of pullIn and dropOut between parts, for `nightsim spread`.") with { Default = 0.1, Min = 0, Max = 0.5 };
     private static readonly ParameterSpec s_operateTime = ParameterSpec.Number("operateTime", "s", "Armature travel time after pull-in") with { Default = s_defaults.OperateTime, Min = 0, Max = 10 };
     private static readonly ParameterSpec s_releaseTime = ParameterSpec.Number("releaseTime", "s", "Armature travel time after drop-out") with { Default = s_defaults.ReleaseTime, Min = 0, Max = 10 };
@@ -77,13 +127,14 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         Pins = ["coilA", "coilB", "com", "no", "nc", "com2", "no2", "nc2"],
         OptionalPins = ["com", "no", "nc", "com2", "no2", "nc2"],
         PinsThatMustDiffer = ["coilA", "coilB"],
-        Parameters = [s_coilResistance, s_coilInductance, s_pullIn, s_dropOut, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact, s_thresholdTolerance],
+        Parameters = [s_coilResistance, s_coilInductance, s_ratedVoltage, s_thresholds, s_pullIn, s_dropOut, s_coilTemperature, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact, s_thresholdTolerance],
         Check = CheckDefinition,
         FacesMains = part => part.Parameters.Has(s_load.Name),
         Create = part => [FromDefinition(part)],
     };
 
     private readonly RelaySettings _settings;
+    private readonly double _hotResistance, _pullInCurrent, _dropOutCurrent;
     private readonly RelayContact[] _contacts;
     private readonly int[] _contactA;
     private readonly int[] _contactB;
@@ -107,11 +158,16 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         : base(name, partId, BuildNodes(coilA, coilB, contacts))
     {
         _settings = settings;
+        _hotResistance = settings.HotCoilResistance;
+        _pullInCurrent = settings.PullInCurrent;
+        _dropOutCurrent = settings.DropOutCurrent;
         _contacts = [.. contacts];
         _contactA = new int[_contacts.Length];
         _contactB = new int[_contacts.Length];
         _contactSlots = new PairSlots[_contacts.Length];
-        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullIn, settings.DropOut, settings.CoilResistance, CoilCurrentLabel(name));
+        // The analysis compares coil voltages: at the coil's temperature the same currents need R(T)/R20 more volts.
+        double hot = settings.HotCoilResistance;
+        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullInCurrent * hot, settings.DropOutCurrent * hot, hot, CoilCurrentLabel(name));
         PowerUp();
     }
 
@@ -144,8 +200,8 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         var settings = new RelaySettings(
             CoilResistance: p.NumberOrDefault(s_coilResistance),
             CoilInductance: p.NumberOrDefault(s_coilInductance),
-            PullIn: p.NumberOrDefault(s_pullIn),
-            DropOut: p.NumberOrDefault(s_dropOut),
+            PullIn: PullInOf(p),
+            DropOut: DropOutOf(p),
             OperateTime: p.NumberOrDefault(s_operateTime),
             ReleaseTime: p.NumberOrDefault(s_releaseTime),
             ContactResistance: p.NumberOrDefault(s_contactResistance),
@@ -153,15 +209,36 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
             Transition: p.NumberOrDefault(s_transition),
             LoadName: load.Length > 0 ? load : null,
             LoadPower: p.Number(s_loadPower.Name, 0.0),
-            LoadNormallyClosed: p.TextOrDefault(s_loadContact) == "nc");
+            LoadNormallyClosed: p.TextOrDefault(s_loadContact) == "nc",
+            CoilTemperature: p.NumberOrDefault(s_coilTemperature));
         return new Relay(part.Id, part.Id, part.Node("coilA"), part.Node("coilB"), contacts, settings);
     }
+
+    private static bool Worst(PartParameters p) => p.TextOrDefault(s_thresholds) == "worst";
+
+    /// <summary>The pull-in ("pullIn") or drop-out ("dropOut") voltage at 20 °C a relay part uses: given, or the
+    /// fraction of its rated voltage its <c>thresholds</c> choose, V. For studies that vary them.</summary>
+    /// <exception cref="KeyNotFoundException">Neither name.</exception>
+    public static double EffectiveThreshold(PartDefinition part, string name) => name switch
+    {
+        "pullIn" => PullInOf(part.Parameters),
+        "dropOut" => DropOutOf(part.Parameters),
+        _ => throw new KeyNotFoundException($"relay has no threshold '{name}'"),
+    };
+
+    /// <summary>Pull-in voltage at 20 °C: given, or the typical or must-operate fraction of the rated voltage, V.</summary>
+    private static double PullInOf(PartParameters p) =>
+        p.OptionalNumber(s_pullIn.Name) ?? (Worst(p) ? MustOperateFraction : TypicalPullInFraction) * p.NumberOrDefault(s_ratedVoltage);
+
+    /// <summary>Drop-out voltage at 20 °C: given, or the typical or must-release fraction of the rated voltage, V.</summary>
+    private static double DropOutOf(PartParameters p) =>
+        p.OptionalNumber(s_dropOut.Name) ?? (Worst(p) ? MustReleaseFraction : TypicalDropOutFraction) * p.NumberOrDefault(s_ratedVoltage);
 
     private static IEnumerable<string> CheckDefinition(PartDefinition part)
     {
         PartParameters p = part.Parameters;
-        if (p.NumberOrDefault(s_dropOut) >= p.NumberOrDefault(s_pullIn))
-            yield return "dropOut must be below pullIn (a relay releases at a lower coil voltage than it operates); typical 12 V relay: pullIn 9 V, dropOut 1.2 V";
+        if (DropOutOf(p) >= PullInOf(p))
+            yield return $"dropOut ({DropOutOf(p):0.###} V) must be below pullIn ({PullInOf(p):0.###} V) (a relay releases at a lower coil voltage than it operates); typical 12 V relay: pullIn 8.4 V, dropOut 2.4 V";
         foreach (string suffix in (string[])["", "2"])
         {
             bool hasCom = part.ConnectedPin("com" + suffix) is not null;
@@ -223,7 +300,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     {
         // Coil: F_br = d/dt(−L·i) + (V_a − V_b − R·i) = 0; the coil current leaves node a and enters node b.
         double i = ctx.X[_coil.K];
-        double r = _settings.CoilResistance;
+        double r = _hotResistance;
         _coil.Load(ctx);
         ctx.J[_coil.K] -= r * i;
         ctx.Q[_coil.K] -= _settings.CoilInductance * i;
@@ -248,8 +325,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         if (index == 0)
         {
             double i = Math.Abs(ctx.X[_coil.K]);
-            double r = _settings.CoilResistance;
-            return _energised ? _settings.DropOut / r - i : i - _settings.PullIn / r;
+            return _energised ? _dropOutCurrent - i : i - _pullInCurrent;
         }
         return _travelling ? ctx.Time - _due : -1.0;
     }

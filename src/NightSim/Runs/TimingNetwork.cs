@@ -41,7 +41,6 @@ public static class TimingNetwork
     private static TimerFacts? Reduce(IReadOnlyList<Device> devices, OneShotTimerRole timer, Func<string, double?> nodeVoltage)
     {
         if (nodeVoltage(timer.Supply) is not double vs || vs <= 0) return null;
-        var collector = new Collector();
         var touching = new Dictionary<string, List<Device>>(StringComparer.Ordinal);
         foreach (Device d in devices)
         {
@@ -56,24 +55,31 @@ public static class TimingNetwork
             touching.GetValueOrDefault(n, []).Any(d => d is not IDcElement && d.PartId != timer.PartId);
 
         if (Boundary(timer.Threshold)) return null;
-        // Interior nodes: reachable from the timing node through linear elements without crossing a boundary node.
-        var interior = new List<string> { timer.Threshold };
-        var index = new Dictionary<string, int>(StringComparer.Ordinal) { [timer.Threshold] = 0 };
-        var elements = new HashSet<Device>();
-        for (int k = 0; k < interior.Count; k++)
+        // Interior nodes: reachable from the start node (index 0) through linear elements without crossing a boundary
+        // node; the linear elements met on the way state themselves to the collector.
+        (Dictionary<string, int> Index, Collector Net, HashSet<Device> Elements) Network(string start, Func<string, bool> boundary)
         {
-            foreach (Device d in touching.GetValueOrDefault(interior[k], []))
+            var net = new Collector();
+            var interior = new List<string> { start };
+            var found = new Dictionary<string, int>(StringComparer.Ordinal) { [start] = 0 };
+            var elements = new HashSet<Device>();
+            for (int k = 0; k < interior.Count; k++)
             {
-                if (d is not IDcElement || !elements.Add(d)) continue;
-                foreach (string n in d.Nodes)
+                foreach (Device d in touching.GetValueOrDefault(interior[k], []))
                 {
-                    if (index.ContainsKey(n) || Boundary(n)) continue;
-                    index[n] = interior.Count;
-                    interior.Add(n);
+                    if (d is not IDcElement || !elements.Add(d)) continue;
+                    foreach (string n in d.Nodes)
+                    {
+                        if (found.ContainsKey(n) || boundary(n)) continue;
+                        found[n] = interior.Count;
+                        interior.Add(n);
+                    }
                 }
             }
+            foreach (Device d in elements) ((IDcElement)d).StampDc(net);
+            return (found, net, elements);
         }
-        foreach (Device d in elements) ((IDcElement)d).StampDc(collector);
+        (Dictionary<string, int> index, Collector collector, HashSet<Device> elements) = Network(timer.Threshold, Boundary);
 
         double capacitance = 0;
         foreach ((string a, string b, double c) in collector.Capacitors)
@@ -90,6 +96,21 @@ public static class TimingNetwork
         double gLeak = 1.0 / rTh - 1.0 / r0;
         double leakage = gLeak > 1e-18 * (1.0 / r0) ? 1.0 / gLeak : double.PositiveInfinity;
         double drain = v0 / r0 - vTh / rTh;
+        // The dump when the one-shot ends: the capacitor at the threshold, the discharge transistor switching on. The
+        // network between the discharge pin and the timing node (nothing, a series resistor, an astable's lower
+        // resistor) with the timing node held at the threshold voltage, reduced to a Thevenin source at the pin.
+        double vThreshold = timer.ThresholdFraction * vs;
+        DischargeFacts? discharge = null;
+        if (timer.Discharge == timer.Threshold)
+        {
+            discharge = new DischargeFacts(vThreshold, 0.0, timer.DischargeResistance, timer.DischargeCurrentLimit, timer.DischargeSafeCurrent);
+        }
+        else if (!Boundary(timer.Discharge))
+        {
+            (Dictionary<string, int> pinIndex, Collector pinNet, _) = Network(timer.Discharge, n => n == timer.Threshold || Boundary(n));
+            if (Thevenin(pinNet, pinIndex, n => n == timer.Threshold ? vThreshold : nodeVoltage(n), includeDrains: false) is (double vPin, double rPin))
+                discharge = new DischargeFacts(vPin, rPin, timer.DischargeResistance, timer.DischargeCurrentLimit, timer.DischargeSafeCurrent);
+        }
         // The timing electrolytics' catalogue leakage limits (parts as bought), for the worst-case check.
         var timingCaps = elements.OfType<Capacitor>().Where(c => c.Nodes.Contains(timer.Threshold)).ToList();
         var limits = timingCaps.Select(c => c.CatalogueLeakageLimit).Where(l => !double.IsNaN(l)).ToList();
@@ -99,6 +120,7 @@ public static class TimingNetwork
             CapacitorId = timingCaps.FirstOrDefault()?.PartId,
             OpenVoltage = v0,
             IsCmos = timer.Family == TimerFamily.Cmos,
+            Discharge = discharge,
         };
     }
 

@@ -73,7 +73,7 @@ public static class ToleranceModel
                     double rel = q.Number("thresholdTolerance", 0);
                     foreach (string name in (string[])["pullIn", "dropOut"])
                     {
-                        if (q.OptionalNumber(name) is double v) Relative(list, p, name, v, rel, rel, $"±{rel * 100:0.#} %", "V");
+                        Relative(list, p, name, Relay.EffectiveThreshold(p, name), rel, rel, $"±{rel * 100:0.#} %", "V");
                     }
                     break;
                 }

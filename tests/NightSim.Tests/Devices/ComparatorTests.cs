@@ -155,4 +155,28 @@ public sealed class ComparatorTests
         Assert.Equal(2, c.EventCount);
         Assert.Contains(Comparator.Kind, PartCatalog.All);
     }
+
+    // A comparator part defaults to an open-collector output, the usual comparator part in a dusk detector (common
+    // practice); push-pull only when stated. Released, the open collector leaves its output to the pull-up:
+    // 12 V through 10 kΩ into the 1 GΩ off-resistance reads 12·1e9/(1e9 + 1e4) V.
+    [Fact]
+    public void Part_Defaults_To_Open_Collector()
+    {
+        var pins = new Dictionary<string, string> { ["plus"] = "p", ["minus"] = "m", ["output"] = "o", ["vcc"] = "v", ["gnd"] = "gnd" };
+        var plain = (Comparator)Assert.Single(Comparator.Kind.Create(BlockBench.Part("X1", "comparator", pins)));
+        Assert.True(plain.Settings.OpenCollector);
+        var pushPull = (Comparator)Assert.Single(Comparator.Kind.Create(BlockBench.Part("X1", "comparator", pins, texts: new() { ["outputType"] = "push-pull" })));
+        Assert.False(pushPull.Settings.OpenCollector);
+
+        SimulationResult r = BlockBench.Run(
+        [
+            BlockBench.Dc("VCC", "v", 12.0),
+            BlockBench.Pwl("VP", "p", (0, 0), (10, 10)),
+            BlockBench.Dc("VM", "m", 5.0),
+            new Resistor("RP", "RP", "v", "o", 10e3),
+            plain,
+        ], 10.0);
+        Assert.Equal(12.0 * 100.0 / (100.0 + 10e3), r.Trace("o")!.At(2.0), 1e-4);   // sinking: 10 kΩ into its 100 Ω
+        Assert.Equal(12.0 * 1e9 / (1e9 + 1e4), r.Trace("o")!.At(8.0), 1e-6);
+    }
 }

@@ -55,7 +55,7 @@ public sealed class LightCurrentSensorTests
             { "id": "RL", "kind": "resistor", "nodes": ["sense", "gnd"], "value": "470k" },
             { "id": "R2", "kind": "resistor", "nodes": ["vcc", "ref"], "value": "100k" },
             { "id": "R3", "kind": "resistor", "nodes": ["ref", "gnd"], "value": "10k" },
-            { "id": "U2", "kind": "comparator", "pins": { "plus": "ref", "minus": "sense", "output": "dark", "vcc": "vcc", "gnd": "gnd" }, "hysteresis": "0.1V" },
+            { "id": "U2", "kind": "comparator", "outputType": "push-pull", "pins": { "plus": "ref", "minus": "sense", "output": "dark", "vcc": "vcc", "gnd": "gnd" }, "hysteresis": "0.1V" },
             { "id": "RB1", "kind": "resistor", "nodes": ["dark", "b1"], "value": "47k" },
             { "id": "Q1", "kind": "npn", "pins": { "c": "col", "b": "b1", "e": "gnd" } },
             { "id": "RC1", "kind": "resistor", "nodes": ["vcc", "col"], "value": "10k" },

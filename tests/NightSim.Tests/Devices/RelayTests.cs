@@ -1,4 +1,6 @@
 using NightSim.Devices;
+using NightSim.Devices.Roles;
+using NightSim.Netlist;
 using NightSim.Results;
 using NightSim.Transient;
 
@@ -6,9 +8,9 @@ namespace NightSim.Tests.Devices;
 
 public sealed class RelayTests
 {
-    // Generic 12 V relay class (common practice): 400 Ω, pull-in 9.0 V, drop-out 1.2 V, operate
-    // ≤ 10 ms, release ≤ 5 ms; coil inductance 0.5 H from memory. These are the defaults of RelaySettings.
-    private static readonly RelaySettings s_class = new();
+    // Generic 12 V relay class (common practice): 400 Ω, operate ≤ 10 ms, release ≤ 5 ms; coil inductance 0.5 H from
+    // memory (the defaults of RelaySettings), at the class limits must-operate 9.0 V (75 %) and must-release 1.2 V (10 %).
+    private static readonly RelaySettings s_class = new() { PullIn = 9.0, DropOut = 1.2 };
 
     private static Relay Make(RelaySettings? settings = null, string? load = null) =>
         new("K1", "K1", "c", "gnd",
@@ -149,5 +151,83 @@ public sealed class RelayTests
         Assert.Equal("lamp", load.LoadName);
         Relay nc = new("K2", "K2", "c", "gnd", [], s_class with { LoadName = "lamp", LoadPower = 40, LoadNormallyClosed = true });
         Assert.True(nc.LoadOn);
+    }
+
+    private static Relay FromNetlist(Dictionary<string, double>? numbers = null, Dictionary<string, string>? texts = null) =>
+        (Relay)Assert.Single(Relay.Kind.Create(BlockBench.Part("K1", "relay",
+            new Dictionary<string, string> { ["coilA"] = "c", ["coilB"] = "gnd" }, numbers, texts)));
+
+    // Pull-in and drop-out default to fractions of the rated coil voltage: typical 70 % and 20 % (common practice, from
+    // memory: measured parts pull in at about 50–75 % of rated and drop out at 10–40 %); "worst" gives the class limits
+    // must-operate 75 % and must-release 10 % (common practice: 9.0 V and 1.2 V for a 12 V coil).
+    [Theory]
+    [InlineData(null, null, 8.4, 2.4)]
+    [InlineData(null, "worst", 9.0, 1.2)]
+    [InlineData(24.0, "typical", 16.8, 4.8)]
+    [InlineData(24.0, "worst", 18.0, 2.4)]
+    [InlineData(5.0, null, 3.5, 1.0)]
+    public void Thresholds_Default_To_Fractions_Of_The_Rated_Voltage(double? rated, string? thresholds, double pullIn, double dropOut)
+    {
+        var numbers = new Dictionary<string, double>();
+        if (rated is double v) numbers["ratedVoltage"] = v;
+        var texts = new Dictionary<string, string>();
+        if (thresholds is string t) texts["thresholds"] = t;
+        Relay k = FromNetlist(numbers, texts);
+        Assert.Equal(pullIn, k.Settings.PullIn, 12);
+        Assert.Equal(dropOut, k.Settings.DropOut, 12);
+    }
+
+    [Fact]
+    public void Explicit_Thresholds_Override_The_Rated_Fractions()
+    {
+        Relay k = FromNetlist(new() { ["ratedVoltage"] = 24.0, ["pullIn"] = 9.0, ["dropOut"] = 1.2 }, new() { ["thresholds"] = "worst" });
+        Assert.Equal(9.0, k.Settings.PullIn);
+        Assert.Equal(1.2, k.Settings.DropOut);
+        // Only one given: the other still follows the rated voltage (typical drop-out 20 % of 12 V = 2.4 V).
+        Relay half = FromNetlist(new() { ["pullIn"] = 9.0 });
+        Assert.Equal(2.4, half.Settings.DropOut, 12);
+        // A drop-out above the pull-in it leads to is refused, naming both values.
+        PartDefinition bad = BlockBench.Part("K1", "relay", new Dictionary<string, string> { ["coilA"] = "c", ["coilB"] = "gnd" },
+            new() { ["pullIn"] = 2.0 });
+        string problem = Assert.Single(Relay.Kind.Check!(bad));
+        Assert.Contains("dropOut (2.4 V) must be below pullIn (2 V)", problem, StringComparison.Ordinal);
+    }
+
+    // Copper coil: R(T) = R20·(1 + 0.00393/K·(T − 20 °C)) (IEC 60028, International Standard of Resistance for Copper:
+    // temperature coefficient of annealed copper 0.00393 per kelvin at 20 °C). 400 Ω at 70 °C: 478.6 Ω; at −20 °C: 337.12 Ω.
+    [Theory]
+    [InlineData(20.0, 400.0)]
+    [InlineData(70.0, 478.6)]
+    [InlineData(-20.0, 337.12)]
+    public void Coil_Resistance_Follows_Copper_Temperature_Coefficient(double celsius, double ohms)
+    {
+        Relay k = FromNetlist(new() { ["coilTemperature"] = celsius });
+        Assert.Equal(ohms, k.Settings.HotCoilResistance, 9);
+        var h = new StampHarness("c");
+        k.Setup(h);
+        k.PowerUp();
+        double[] x = [12.0, 0.02];
+        LoadContext at = h.Load(k, x);
+        Assert.Equal(12.0 - 400.0 * (1 + 0.00393 * (celsius - 20.0)) * 0.02, at.J[1], 12);   // branch: V_a − V_b − R(T)·i
+        h.AssertJacobians(k, x);
+        var role = Assert.IsType<RelayCoilRole>(k.Role);
+        Assert.Equal(ohms, role.CoilResistance, 9);
+        Assert.Equal(8.4 * ohms / 400.0, role.PullIn, 9);          // same pull-in current, more volts when hot
+    }
+
+    // A hot coil draws less current, so it pulls in later on a slow ramp: the pull-in current stays 9.0 V/400 Ω
+    // = 22.5 mA (the ampere-turns the armature needs), reached at 22.5 mA·R(70 °C) = 10.7685 V, with the coil's own lag
+    // τ = L/R(70 °C) (ramp response of an R-L, circuit theory).
+    [Fact]
+    public void Hot_Coil_Pulls_In_At_A_Higher_Voltage()
+    {
+        double hot = 400.0 * (1 + 0.00393 * 50.0);
+        SimulationResult r = BlockBench.Run(
+        [
+            BlockBench.Pwl("VC", "c", (0, 0), (12, 12)),
+            new Relay("K1", "K1", "c", "gnd", [], s_class with { CoilTemperature = 70.0 }),
+        ], 12.0);
+        double pulled = Assert.Single(BlockBench.Times(r, "K1", "coil", "pulled in"));
+        Assert.Equal(9.0 / 400.0 * hot + 0.5 / hot, pulled, 1e-5);
     }
 }

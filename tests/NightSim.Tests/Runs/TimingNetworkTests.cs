@@ -13,11 +13,13 @@ public class TimingNetworkTests
 {
     private const double Supply = 12.0, C = 100e-6;
 
-    private static List<Device> Circuit(params Device[] timing)
+    private static List<Device> Circuit(params Device[] timing) => Circuit("tc", "cmos", timing);
+
+    private static List<Device> Circuit(string discharge, string variant, params Device[] timing)
     {
         var timer = new PartDefinition("U1", "timer-555",
-            new Dictionary<string, string> { ["vcc"] = "vcc", ["gnd"] = Ground.Node, ["threshold"] = "tc", ["discharge"] = "tc", ["trigger"] = "trig", ["output"] = "out", ["reset"] = "vcc" },
-            new PartParameters(texts: new Dictionary<string, string> { ["variant"] = "cmos" }));
+            new Dictionary<string, string> { ["vcc"] = "vcc", ["gnd"] = Ground.Node, ["threshold"] = "tc", ["discharge"] = discharge, ["trigger"] = "trig", ["output"] = "out", ["reset"] = "vcc" },
+            new PartParameters(texts: new Dictionary<string, string> { ["variant"] = variant }));
         var list = new List<Device> { new VoltageSource("V1", "V1", "vcc", Ground.Node, Waveform.Dc(Supply)) };
         list.AddRange(timing);
         list.AddRange(Timer555.Expand(timer));
@@ -96,5 +98,53 @@ public class TimingNetworkTests
         var devices = Circuit(new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", Ground.Node, C),
             new Bjt("Q1", "Q1", "tc", "b", Ground.Node));
         Assert.Empty(TimingNetwork.Extract(devices, n => TimingNetwork.FixedVoltage(devices, n)));
+    }
+
+    // The dump when the one-shot ends: the capacitor at the 2/3 threshold (8 V of 12 V, common practice) into the
+    // discharge transistor, peak = V/(R_path + R_on) by Ohm's law; the family defaults (CMOS 15 Ω, 50 mA limit, 20 mA
+    // safe; bipolar 10 Ω, 200 mA, 100 mA; from memory).
+    [Fact]
+    public void DischargeTiedToTheCapacitorDumpsItThroughTheOnResistance()
+    {
+        TimerFacts f = Facts(Circuit(new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", Ground.Node, C)));
+        DischargeFacts d = Assert.IsType<DischargeFacts>(f.Discharge);
+        Assert.Equal(8.0, d.Voltage, 12);
+        Assert.Equal(0.0, d.PathResistance);
+        Assert.Equal(8.0 / 15.0, d.CircuitPeak, 12);                  // 533 mA
+        Assert.Equal(0.05, d.PeakCurrent, 12);                         // the transistor's limit
+        Assert.True(d.AboveSafe);
+        Assert.Equal(8.0 / 0.02 - 15.0, d.SeriesResistanceNeeded, 9); // 385 Ω brings it to 20 mA
+
+        TimerFacts bipolar = Facts(Circuit("tc", "bipolar", new Resistor("RT", "RT", "vcc", "tc", 1e6), new Capacitor("CT", "CT", "tc", Ground.Node, C)));
+        Assert.Equal(0.8, bipolar.Discharge!.CircuitPeak, 12);         // 8 V / 10 Ω
+        Assert.Equal(0.2, bipolar.Discharge.PeakCurrent, 12);
+        Assert.Equal(70.0, bipolar.Discharge.SeriesResistanceNeeded, 9);
+    }
+
+    [Fact]
+    public void SeriesResistorInTheDischargePathLimitsTheDump()
+    {
+        // 390 Ω between the pin and the capacitor: 8 V / (390 + 15) Ω = 19.75 mA, below the 20 mA safe current.
+        TimerFacts f = Facts(Circuit("dis", "cmos", new Resistor("RT", "RT", "vcc", "tc", 1e6), new Resistor("RD", "RD", "dis", "tc", 390.0),
+            new Capacitor("CT", "CT", "tc", Ground.Node, C)));
+        DischargeFacts d = Assert.IsType<DischargeFacts>(f.Discharge);
+        Assert.Equal(8.0, d.Voltage, 9);
+        Assert.Equal(390.0, d.PathResistance, 9);
+        Assert.Equal(8.0 / 405.0, d.PeakCurrent, 12);
+        Assert.False(d.AboveSafe);
+        Assert.Equal(109.861, f.IdealWidth, 3);                       // the timing itself is unchanged
+    }
+
+    [Fact]
+    public void DischargePinBetweenTwoResistorsSeesTheirTheveninSource()
+    {
+        // 1 kΩ from the supply to the pin, 10 kΩ from the pin to the capacitor at 8 V (Thevenin by hand):
+        // V = (12/1k + 8/10k)/(1/1k + 1/10k) = 11.636 V behind 1k ∥ 10k = 909.1 Ω; peak 11.636/(909.1 + 15) = 12.59 mA.
+        TimerFacts f = Facts(Circuit("dis", "cmos", new Resistor("RA", "RA", "vcc", "dis", 1e3), new Resistor("RB", "RB", "dis", "tc", 10e3),
+            new Capacitor("CT", "CT", "tc", Ground.Node, C)));
+        DischargeFacts d = Assert.IsType<DischargeFacts>(f.Discharge);
+        Assert.Equal(12.8 / 1.1, d.Voltage, 9);
+        Assert.Equal(1e4 / 11.0, d.PathResistance, 6);
+        Assert.Equal(12.8 / 1.1 / (1e4 / 11.0 + 15.0), d.PeakCurrent, 9);
     }
 }

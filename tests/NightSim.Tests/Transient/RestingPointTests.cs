@@ -20,7 +20,7 @@ public sealed class RestingPointTests
             { "id": "R2", "kind": "resistor", "nodes": ["in", "gnd"], "value": "80k" },
             { "id": "R3", "kind": "resistor", "nodes": ["vcc", "ref"], "value": "10k" },
             { "id": "R4", "kind": "resistor", "nodes": ["ref", "gnd"], "value": "10k" },
-            { "id": "U1", "kind": "comparator", "pins": { "plus": "in", "minus": "ref", "output": "o", "vcc": "vcc", "gnd": "gnd" }, "hysteresis": "0.1V" },
+            { "id": "U1", "kind": "comparator", "outputType": "push-pull", "pins": { "plus": "in", "minus": "ref", "output": "o", "vcc": "vcc", "gnd": "gnd" }, "hysteresis": "0.1V" },
             { "id": "RL", "kind": "resistor", "nodes": ["o", "gnd"], "value": "100k" }
           ]
         }

@@ -18,7 +18,7 @@ public class SineStepLimitTests
           { "id": "V1", "kind": "voltage-source", "nodes": ["a", "gnd"], "sine": { "amplitude": "5", "frequency": "50" } },
           { "id": "VCC", "kind": "voltage-source", "nodes": ["vcc", "gnd"], "constant": "12" },
           { "id": "R1", "kind": "resistor", "nodes": ["a", "gnd"], "value": "10k" },
-          { "id": "U1", "kind": "comparator", "pins": { "plus": "a", "minus": "gnd", "output": "out", "vcc": "vcc", "gnd": "gnd" }, "offset": "4.5" },
+          { "id": "U1", "kind": "comparator", "outputType": "push-pull", "pins": { "plus": "a", "minus": "gnd", "output": "out", "vcc": "vcc", "gnd": "gnd" }, "offset": "4.5" },
           { "id": "RL", "kind": "resistor", "nodes": ["out", "gnd"], "value": "10k" } ] }
         """;
         SimulationResult r = TransientSolver.Run(Circuit.Build(NetlistLoader.LoadText(json)), 1.0);

@@ -5,13 +5,16 @@ namespace NightSim.Devices.Composite;
 /// <summary>
 /// The timer's discharge transistor as a switch from the discharge pin to gnd that follows its latch: on while q is
 /// low, off while q is high, blended geometrically in conductance over the latch's output transition (no event of its
-/// own, so it switches exactly with the latch). Same matrix slots in both states.
+/// own, so it switches exactly with the latch). Same matrix slots in both states. The transistor's drive limits its
+/// current: i = I_max·tanh(g·v/I_max), the switch's conductance for small currents, never more than I_max (a smooth
+/// stand-in for a saturated transistor leaving saturation at the current its base drive allows).
 /// </summary>
 public sealed class DischargeSwitch : Device, Roles.IDcElement
 {
     private readonly ILogicLevel _latch;
     private readonly double _gOn;
     private readonly double _gOff;
+    private readonly double _limit;
     private int _a, _b;
     private PairSlots _slots;
 
@@ -22,18 +25,27 @@ public sealed class DischargeSwitch : Device, Roles.IDcElement
     /// <param name="latch">The latch it follows.</param>
     /// <param name="onResistance">On resistance, Ω.</param>
     /// <param name="offResistance">Off resistance (leakage), Ω.</param>
-    public DischargeSwitch(string name, string partId, string discharge, string gnd, ILogicLevel latch, double onResistance, double offResistance)
+    /// <param name="currentLimit">Most current the transistor conducts, A (+∞: none).</param>
+    public DischargeSwitch(string name, string partId, string discharge, string gnd, ILogicLevel latch, double onResistance, double offResistance,
+        double currentLimit = double.PositiveInfinity)
         : base(name, partId, [discharge, gnd])
     {
         _latch = latch;
         _gOn = 1.0 / onResistance;
         _gOff = 1.0 / offResistance;
+        _limit = currentLimit;
     }
 
-    /// <summary>Conductance at run time <paramref name="time"/>, S.</summary>
+    /// <summary>Most current the transistor conducts, A.</summary>
+    public double CurrentLimit => _limit;
+
+    /// <summary>Current from the discharge pin to gnd at conductance <paramref name="g"/> and voltage <paramref name="v"/>, A.</summary>
+    public double Current(double g, double v) => double.IsPositiveInfinity(_limit) ? g * v : _limit * Math.Tanh(g * v / _limit);
+
     /// <summary>While the one-shot times, the switch is off: its off-resistance is a drain at the discharge pin.</summary>
     public void StampDc(Roles.DcNetwork network) => network.Conductance(Nodes[0], Nodes[1], _gOff, drain: true);
 
+    /// <summary>Conductance for small currents at run time <paramref name="time"/>, S.</summary>
     public double Conductance(double time) => _gOff * Math.Pow(_gOn / _gOff, 1.0 - _latch.Level(time));
 
     public override void Setup(SetupContext setup)
@@ -46,7 +58,15 @@ public sealed class DischargeSwitch : Device, Roles.IDcElement
     public override void Load(LoadContext ctx)
     {
         double g = Conductance(ctx.Time);
-        ctx.AddCurrent(_a, _b, g * (ctx.V(_a) - ctx.V(_b)));
-        _slots.Add(ctx.G, g);
+        double v = ctx.V(_a) - ctx.V(_b);
+        if (double.IsPositiveInfinity(_limit))
+        {
+            ctx.AddCurrent(_a, _b, g * v);
+            _slots.Add(ctx.G, g);
+            return;
+        }
+        double th = Math.Tanh(g * v / _limit);
+        ctx.AddCurrent(_a, _b, _limit * th);
+        _slots.Add(ctx.G, g * (1.0 - th * th));
     }
 }

@@ -29,6 +29,10 @@ public static class Timer555
     private static readonly ParameterSpec s_resetCurrent = Current("resetCurrent", "Current out of the reset pin while it is held low (bipolar 0.1 mA typical, 0.4 mA maximum; CMOS 10 pA typical, 100 pA maximum; from memory)");
     private static readonly ParameterSpec s_resetThreshold = ParameterSpec.Number("resetThreshold", "V", "Reset pin threshold above gnd (0.7 V both families; from memory)") with { Min = 0, Max = 20 };
     private static readonly ParameterSpec s_dischargeResistance = ParameterSpec.Number("dischargeResistance", "Ω", "Discharge switch on-resistance (bipolar 10 Ω, CMOS 15 Ω; from memory)") with { Min = 1e-3, Max = 1e6 };
+    private static readonly ParameterSpec s_dischargeCurrentLimit = ParameterSpec.Number("dischargeCurrentLimit", "A",
+        "Most current the discharge transistor conducts, set by its drive (bipolar 200 mA, CMOS 50 mA; from memory)") with { Min = 1e-6, Max = 10 };
+    private static readonly ParameterSpec s_dischargeSafeCurrent = ParameterSpec.Number("dischargeSafeCurrent", "A",
+        "Peak discharge current the transistor takes safely again and again; above it a finding asks for a series resistor (bipolar 100 mA, CMOS 20 mA; from memory)") with { Min = 1e-6, Max = 10 };
     private static readonly ParameterSpec s_dischargeOffResistance = ParameterSpec.Number("dischargeOffResistance", "Ω", "Discharge switch off-resistance, i.e. leakage (bipolar 500 MΩ ≈ 20 nA at 10 V, CMOS 10 GΩ; common practice)") with { Min = 1e3, Max = 1e18 };
     private static readonly ParameterSpec s_supplyCurrent = ParameterSpec.Number("supplyCurrent", "A", "Quiescent supply current at supplyNominal, divider included; proportional to supply (bipolar 8 mA, CMOS 0.2 mA at 15 V; common practice band 3–10 mA and 0.1–0.4 mA)") with { Min = 0, Max = 0.1 };
     private static readonly ParameterSpec s_supplyNominal = ParameterSpec.Number("supplyNominal", "V", "Supply voltage at which supplyCurrent is given") with { Default = 15.0, Min = 1, Max = 30 };
@@ -47,13 +51,15 @@ public static class Timer555
     /// <summary>Defaults of one family.</summary>
     private sealed record Family(double ThresholdCurrent, double TriggerCurrent, double ResetCurrent, double ResetThreshold,
         double DischargeResistance, double DischargeOffResistance, double SupplyCurrent, double DividerResistance,
-        double OutputDropHigh, double OutputDropLow, double OutputResistanceHigh, double OutputResistanceLow);
+        double OutputDropHigh, double OutputDropLow, double OutputResistanceHigh, double OutputResistanceLow,
+        double DischargeCurrentLimit, double DischargeSafeCurrent);
 
     // Common practice for the part class (discharge leakage, supply current, output drop); input currents (typical and
-    // maximum columns), divider legs, reset values, discharge and output resistances from memory.
-    private static readonly Family s_bipolar = new(0.1e-6, 0.5e-6, 0.1e-3, 0.7, 10.0, 500e6, 8e-3, 5e3, 1.4, 0.05, 3.0, 10.0);
+    // maximum columns), divider legs, reset values, discharge and output resistances, discharge current limits and safe
+    // currents from memory.
+    private static readonly Family s_bipolar = new(0.1e-6, 0.5e-6, 0.1e-3, 0.7, 10.0, 500e6, 8e-3, 5e3, 1.4, 0.05, 3.0, 10.0, 0.2, 0.1);
     private static readonly Family s_bipolarMaximum = s_bipolar with { ThresholdCurrent = 0.25e-6, TriggerCurrent = 0.9e-6, ResetCurrent = 0.4e-3 };
-    private static readonly Family s_cmos = new(10e-12, 10e-12, 10e-12, 0.7, 15.0, 10e9, 0.2e-3, 100e3, 0.0, 0.0, 150.0, 20.0);
+    private static readonly Family s_cmos = new(10e-12, 10e-12, 10e-12, 0.7, 15.0, 10e9, 0.2e-3, 100e3, 0.0, 0.0, 150.0, 20.0, 0.05, 0.02);
     private static readonly Family s_cmosMaximum = s_cmos with { ThresholdCurrent = 100e-12, TriggerCurrent = 100e-12, ResetCurrent = 100e-12 };
 
     private static Family FamilyOf(PartParameters p)
@@ -71,7 +77,7 @@ public static class Timer555
         Parameters =
         [
             s_variant, s_inputCurrents, s_thresholdCurrent, s_triggerCurrent, s_resetCurrent, s_resetThreshold, s_dischargeResistance,
-            s_dischargeOffResistance, s_supplyCurrent, s_supplyNominal, s_dividerResistance, s_outputDropHigh, s_outputDropLow,
+            s_dischargeOffResistance, s_dischargeCurrentLimit, s_dischargeSafeCurrent, s_supplyCurrent, s_supplyNominal, s_dividerResistance, s_outputDropHigh, s_outputDropLow,
             s_outputResistanceHigh, s_outputResistanceLow, s_thresholdOffset, s_triggerOffset, s_hysteresis, s_transition,
             s_offsetTolerance, s_inputCurrentTolerance,
         ],
@@ -93,6 +99,8 @@ public static class Timer555
             "resetThreshold" => f.ResetThreshold,
             "dischargeResistance" => f.DischargeResistance,
             "dischargeOffResistance" => f.DischargeOffResistance,
+            "dischargeCurrentLimit" => f.DischargeCurrentLimit,
+            "dischargeSafeCurrent" => f.DischargeSafeCurrent,
             "supplyCurrent" => f.SupplyCurrent,
             "dividerResistance" => f.DividerResistance,
             "outputDropHigh" => f.OutputDropHigh,
@@ -142,18 +150,24 @@ public static class Timer555
         devices.Add(new Comparator(Internal("reset-comparator"), id, gnd, reset, Internal("clear"), vcc, gnd,
             logic with { Offset = -p.Number(s_resetThreshold.Name, family.ResetThreshold), InitialHigh = true, RisingMeans = DeviceEventKind.ResetHeld, FallingMeans = DeviceEventKind.ResetReleased }));
 
+        double dischargeResistance = p.Number(s_dischargeResistance.Name, family.DischargeResistance);
+        double dischargeLimit = p.Number(s_dischargeCurrentLimit.Name, family.DischargeCurrentLimit);
         var latch = new SrLatch(Internal("latch"), id, Internal("s"), Internal("r"), Internal("clear"), Internal("q"), null, vcc, gnd,
             new SrLatchSettings(ResetDominant: false, OutputResistance: 1e3, Transition: transition, ClearActiveAtPowerUp: true,
                 RisingMeans: DeviceEventKind.TimerOutputHigh, FallingMeans: DeviceEventKind.TimerOutputLow))
         {
             Role = new OneShotTimerRole(id, vcc, gnd, trigger, threshold, discharge, output,
-                p.TextOrDefault(s_variant) == "bipolar" ? TimerFamily.Bipolar : TimerFamily.Cmos),
+                p.TextOrDefault(s_variant) == "bipolar" ? TimerFamily.Bipolar : TimerFamily.Cmos)
+            {
+                DischargeResistance = dischargeResistance,
+                DischargeCurrentLimit = dischargeLimit,
+                DischargeSafeCurrent = p.Number(s_dischargeSafeCurrent.Name, family.DischargeSafeCurrent),
+            },
         };
         devices.Add(latch);
 
         devices.Add(new DischargeSwitch(Internal("discharge"), id, discharge, gnd, latch,
-            p.Number(s_dischargeResistance.Name, family.DischargeResistance),
-            p.Number(s_dischargeOffResistance.Name, family.DischargeOffResistance)));
+            dischargeResistance, p.Number(s_dischargeOffResistance.Name, family.DischargeOffResistance), dischargeLimit));
         devices.Add(new OutputStage(Internal("output-stage"), id, output, vcc, gnd, latch,
             p.Number(s_outputDropLow.Name, family.OutputDropLow), p.Number(s_outputDropHigh.Name, family.OutputDropHigh),
             p.Number(s_outputResistanceLow.Name, family.OutputResistanceLow), p.Number(s_outputResistanceHigh.Name, family.OutputResistanceHigh)));

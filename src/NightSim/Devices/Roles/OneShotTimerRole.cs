@@ -26,4 +26,13 @@ public sealed record OneShotTimerRole(
     double ThresholdFraction = 2.0 / 3.0) : PartRole(PartId)
 {
     public override string Title => "one-shot timer";
+
+    /// <summary>On-resistance of the discharge transistor, Ω.</summary>
+    public double DischargeResistance { get; init; } = 10.0;
+
+    /// <summary>Most current the discharge transistor conducts, A.</summary>
+    public double DischargeCurrentLimit { get; init; } = double.PositiveInfinity;
+
+    /// <summary>Peak discharge current the transistor takes safely again and again, A.</summary>
+    public double DischargeSafeCurrent { get; init; } = double.PositiveInfinity;
 }
