@@ -33,6 +33,12 @@ internal static class SimulateCommand
         var noProgress = new Option<bool>("--no-progress") { Description = "No progress bar or progress lines." };
         var failOn = new Option<string?>("--fail-on") { Description = "Exit with code 4 when a finding is at or above this severity.", HelpName = "warning|error" };
         failOn.AcceptOnlyFromAmong("warning", "error");
+        var accuracy = new Option<string>("--accuracy")
+        {
+            Description = "Solver tolerances: loose (faster; a way past a stage that will not settle), normal, or tight.",
+            DefaultValueFactory = _ => "normal",
+        };
+        accuracy.AcceptOnlyFromAmong("loose", "normal", "tight");
         var noPlots = new Option<bool>("--no-plots") { Description = "Skip the SVG/PNG plots (faster; report.html then has no figures)." };
         var lux = new Option<string?>("--lux") { Description = "Constant illuminance on every light sensor, lux (default 0).", HelpName = "VALUE" };
         var outDir = new Option<DirectoryInfo>("--out")
@@ -57,6 +63,7 @@ internal static class SimulateCommand
         command.Options.Add(noProgress);
         command.Options.Add(failOn);
         command.Options.Add(noPlots);
+        command.Options.Add(accuracy);
         command.SetAction(pr => CliErrors.Run(pr, (output, error) =>
         {
             FileInfo net = pr.GetValue(netlist)!;
@@ -76,7 +83,7 @@ internal static class SimulateCommand
                     return CliErrors.InvalidInput;
                 }
                 var settings = new SimulateNight.Settings(net.ToString(), scenarioPath, pr.GetValue(nights), pr.GetValue(outDir)!,
-                    pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots));
+                    pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots), pr.GetValue(accuracy)!);
                 return SimulateNight.Execute(settings, Terminal.For(output), output, error);
             }
             if (durationText is null)
@@ -84,12 +91,12 @@ internal static class SimulateCommand
                 error.WriteLine($"{net}: no scenario given and no {Path.GetFileNameWithoutExtension(net.Name)}.scenario.json beside it. hint: add --scenario FILE for a night run, or --for DURATION (e.g. --for 10s) for a plain transient");
                 return CliErrors.InvalidInput;
             }
-            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), output, error);
+            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), pr.GetValue(accuracy)!, output, error);
         }));
         return command;
     }
 
-    private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList, TextWriter output, TextWriter error)
+    private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList, string accuracy, TextWriter output, TextWriter error)
     {
         if (!Duration.TryParse(durationText, out double stop, out string? durationError))
         {
@@ -132,7 +139,7 @@ internal static class SimulateCommand
             }
         }
 
-        var options = TransientOptions.Default with { RecordNodes = record, ConstantLux = lux };
+        var options = (TransientOptions.ForAccuracy(accuracy) ?? TransientOptions.Default) with { RecordNodes = record, ConstantLux = lux };
         SimulationResult result = TransientSolver.Run(circuit, stop, options);
         SolverStatistics s = result.Statistics;
         if (result.Failure is { } failure)

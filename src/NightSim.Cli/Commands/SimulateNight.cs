@@ -23,7 +23,8 @@ internal static class SimulateNight
         string Format,
         bool NoProgress,
         string? FailOn,
-        bool NoPlots);
+        bool NoPlots,
+        string Accuracy = "normal");
 
     /// <summary>The companion scenario of a demo netlist: &lt;name&gt;.scenario.json beside &lt;name&gt;.json, or null.</summary>
     public static string? CompanionScenario(string netlistPath)
@@ -62,6 +63,7 @@ internal static class SimulateNight
             Scenario = scenario,
             ScenarioPath = s.ScenarioPath,
             Tool = "nightsim " + typeof(SimulateNight).Assembly.GetName().Version?.ToString(3),
+            Options = Transient.TransientOptions.ForAccuracy(s.Accuracy) ?? Transient.TransientOptions.Default,
         };
         // Progress goes to standard error, so standard output carries only the report (redirect it to a file freely).
         var progress = new ProgressReporter(Terminal.For(error), enabled: !s.NoProgress && s.Format == "text");
@@ -70,7 +72,9 @@ internal static class SimulateNight
 
         if (result.Simulation.Failure is { } failure)
         {
-            error.WriteLine($"{s.NetlistPath}: simulation failed at {ReportText.Clock(result.Facts.Clock(failure.Time))} (run time {failure.Time.ToString("0.######", CultureInfo.InvariantCulture)} s): {failure}");
+            string clock = ReportText.Clock(result.Facts.Clock(failure.Time));
+            error.WriteLine($"{s.NetlistPath}: simulation failed at {clock} (run time {failure.Time.ToString("0.######", CultureInfo.InvariantCulture)} s): {failure}");
+            WritePartial(s, result, failure, clock, dir, error);
             return CliErrors.Unexpected;
         }
 
@@ -117,6 +121,55 @@ internal static class SimulateNight
         }
         if (plotWarning is not null) error.WriteLine("warning: " + plotWarning);
         return FailOn(report, s.FailOn);
+    }
+
+    /// <summary>
+    /// What a failed run computed, named as partial so it is never taken for a finished run: report-partial.json (the
+    /// failure: time, worst nodes with values, parts, hint), trace-partial.csv up to the failure and a plot of the last
+    /// stretch before it (last-seconds-partial.svg/png). Complete outputs of an earlier run in the folder stay as they are.
+    /// </summary>
+    private static void WritePartial(Settings s, NightRunResult result, Results.SimulationFailure failure, string clock, string dir, TextWriter error)
+    {
+        var written = new List<string>();
+        string reportPath = Path.Combine(dir, "report-partial.json");
+        PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, result.Facts.Duration, failure.Time, clock,
+            failure, result.Simulation.Statistics), reportPath);
+        written.Add(reportPath);
+        string tracePath = Path.Combine(dir, "trace-partial.csv");
+        CsvTraceWriter.Write(result.Traces, tracePath);
+        written.Add(tracePath);
+        if (!s.NoPlots && LastStretch(result, failure) is { } data)
+        {
+            PlotFiles files = PlotWriter.Write(NightPlotBuilder.Build(data), dir, data.FileStem);
+            written.Add(files.SvgPath);
+            if (files.PngPath is not null) written.Add(files.PngPath);
+        }
+        error.WriteLine($"kept what was computed up to {clock}: {string.Join(", ", written.Select(Path.GetFileName))} in {dir}");
+    }
+
+    /// <summary>The recorded node voltages over the last stretch before the failure (the last 200 recorded points).</summary>
+    private static PlotData? LastStretch(NightRunResult result, Results.SimulationFailure failure)
+    {
+        var series = new List<PlotSeries>();
+        double from = failure.Time;
+        foreach (Results.Trace t in result.Simulation.Traces)
+        {
+            if (t.Unit != "V" || t.Times.Count == 0) continue;
+            int start = Math.Max(0, t.Times.Count - 200);
+            from = Math.Min(from, t.Times[start]);
+            series.Add(new PlotSeries($"node {t.Name}", "V", PlotPanel.Voltages, [.. t.Times.Skip(start)], [.. t.Values.Skip(start)]));
+        }
+        if (series.Count == 0 || !(failure.Time > from)) return null;
+        return new PlotData
+        {
+            Title = $"Last stretch before the failure (partial): {failure.Reason}",
+            Origin = result.Simulation.Origin ?? DateTimeOffset.UnixEpoch,
+            From = from,
+            To = failure.Time,
+            Series = series,
+            Markers = [new PlotMarker(failure.Time, "failure", Emphasis: true)],
+            FileStem = "last-seconds-partial",
+        };
     }
 
     /// <summary>Plots of an earlier run in the same folder would sit beside the new ones and mislead: remove them.</summary>

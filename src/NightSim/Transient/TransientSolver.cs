@@ -222,6 +222,7 @@ public sealed partial class TransientSolver
         }
 
         Evaluate(_x, 0.0);
+        FindChargeFreeNodes();
         Array.Copy(_ctx.Q, _q, _n);
         for (int i = 0; i < _n; i++) _qd[i] = -_ctx.J[i];
         SetTolerances();
@@ -298,8 +299,18 @@ public sealed partial class TransientSolver
                 _stats.NewtonFailures++;
                 _failuresHere++;
                 _rejectedLast = true;
+                _damped = true; // retries at this point take damped Newton corrections
                 _h = h / (_failuresHere > 1 ? 8.0 : 4.0);
                 if (_failuresHere >= 2) _needRestart = true; // two failures at this point: fall back to BE
+                if (_h < hMin && StartContinuation())
+                {
+                    // Pseudo-transient continuation: a small capacitance on every node without any of its own, from
+                    // the restart step down (TransientSolver.Convergence.cs).
+                    _h = Math.Max(hMin, _options.RestartStep);
+                    _failuresHere = 0;
+                    _needRestart = true;
+                    continue;
+                }
                 if (_h < hMin && _opGmin == 0)
                 {
                     // Last resort before giving up: a temporary 1e-9 S shunt on every node for this step
@@ -313,7 +324,7 @@ public sealed partial class TransientSolver
                 {
                     _opGmin = 0;
                     _failure = new SimulationFailure(t, "Newton iteration did not converge even at the smallest step", WorstUnknowns(),
-                        "try a looser tolerance, add series resistance to ideal sources and switches, or check the worst nodes for floating parts");
+                        "try --accuracy loose; give the transistors or diodes on the worst nodes a junction capacitance (e.g. baseEmitterCapacitance \"10p\", baseCollectorCapacitance \"4p\"), or put about 1 µF from the sensor node to gnd");
                     return false;
                 }
                 continue;
@@ -336,7 +347,7 @@ public sealed partial class TransientSolver
                     if (!double.IsFinite(r) && h <= hMin * (1.0 + 1e-9))
                     {
                         _failure = new SimulationFailure(t, "the local error is not finite even at the smallest step", WorstUnknowns(),
-                            "the circuit may switch infinitely fast (an ideal loop); add a small capacitance or resistance, or loosen the tolerance");
+                            "the circuit may switch infinitely fast (an ideal loop); add a capacitor of about 1 nF from the worst node to gnd, a resistor of about 100 Ω in series with the ideal source, or try --accuracy loose");
                         return false;
                     }
                     continue;
@@ -412,6 +423,7 @@ public sealed partial class TransientSolver
         _stats.Factorizations = _solver.Factorizations;
         _stats.PivotAnalyses = _solver.Analyses;
         _stats.CpuSeconds = (Environment.CpuUsage.TotalTime.Ticks - _cpuStart) / (double)TimeSpan.TicksPerSecond;
+        if (_failure is { } f) _failure = DescribeFailure(f);
         return new SimulationResult(_recorder?.Build() ?? [], [.. _eventLog.Events], _stats,
             _failure?.Time ?? _time.Value, _light?.Origin, _failure);
     }
@@ -444,6 +456,8 @@ public sealed partial class TransientSolver
         _stats.NoteStep(h);
         _rejectedLast = false;
         _failuresHere = 0;
+        _damped = false;
+        NoteContinuationStep(h);
 
         double tNow = _time.Value;
         Array.Copy(_x, _ctx.X, _n);
@@ -630,6 +644,7 @@ public sealed partial class TransientSolver
                 _factorValid = true;
             }
             _solver.Solve(rhs);
+            DampCorrection();
             bool converged = !_ctx.Limited;
             for (int i = 0; i < n; i++)
             {
@@ -683,6 +698,7 @@ public sealed partial class TransientSolver
         Array.Clear(_ctx.G);
         Array.Clear(_ctx.C);
         foreach (Device d in _devices) d.Load(_ctx);
+        AddContinuationCapacitance();
         if (_opGmin > 0)
         {
             int[] diag = _circuit.NodeDiagonal;
@@ -820,6 +836,23 @@ public sealed partial class TransientSolver
             }
         }
         return new TraceRecorder(indices, names, units, 0.0, stop, _options.TraceBuckets);
+    }
+
+    /// <summary>The failure with the values of its worst unknowns at the last accepted point and the parts on them.</summary>
+    private SimulationFailure DescribeFailure(SimulationFailure f)
+    {
+        var values = new List<double>();
+        var nodes = new HashSet<string>(StringComparer.Ordinal);
+        foreach (string name in f.WorstNodes)
+        {
+            int i = _circuit.IndexOf(name);
+            values.Add(i >= 0 ? _x[i] : double.NaN);
+            nodes.Add(name);
+        }
+        var parts = new List<string>();
+        foreach (Device d in _devices)
+            if (d.Nodes.Any(nodes.Contains) && !parts.Contains(d.PartId)) parts.Add(d.PartId);
+        return f with { WorstValues = values, Parts = parts };
     }
 
     private List<string> WorstUnknowns()
