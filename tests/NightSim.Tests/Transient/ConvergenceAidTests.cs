@@ -68,7 +68,20 @@ public sealed class ConvergenceAidTests
     {
         NightRunResult run = SnapActionNight(s_noAids);
         Assert.False(run.Simulation.Succeeded);
-        Assert.Contains("did not converge", run.Simulation.Failure!.Reason, StringComparison.Ordinal);
+        SimulationFailure failure = run.Simulation.Failure!;
+        Assert.Contains("did not converge", failure.Reason, StringComparison.Ordinal);
+        // The failure keeps its work: the worst nodes with their last values and the parts on them, in a partial report.
+        Assert.Equal(failure.WorstNodes.Count, failure.WorstValues.Count);
+        Assert.Contains("RF", failure.Parts);
+        Assert.Contains("--accuracy loose", failure.Hint, StringComparison.Ordinal);
+        using var stream = new MemoryStream();
+        PartialReportWriter.Write(new PartialReportWriter.Content("n.json", "s.json", run.Facts.Duration, failure.Time, "19:51:40",
+            failure, run.Simulation.Statistics), stream);
+        using var doc = System.Text.Json.JsonDocument.Parse(stream.ToArray());
+        Assert.True(doc.RootElement.GetProperty("partial").GetBoolean());
+        var worst = doc.RootElement.GetProperty("failure").GetProperty("worstNodes");
+        Assert.Equal(failure.WorstNodes.Count, worst.GetArrayLength());
+        Assert.Equal(failure.Time, doc.RootElement.GetProperty("failure").GetProperty("runSeconds").GetDouble());
     }
 
     /// <summary>Emitter-coupled Schmitt trigger: Q1 and Q2 share RE; Q1's collector drives Q2's base through a 47k/47k
