@@ -227,7 +227,7 @@ public sealed partial class TransientSolver
         for (int i = 0; i < _n; i++) _qd[i] = -_ctx.J[i];
         SetTolerances();
         if (_options.Start == StartMode.PowerUp) _needRestart = !AlgebraicRowsSatisfied();
-        RecordPoint();
+        RecordPoint(keepRow: true);
         EvaluateEvents(_x, 0.0, _gNew, _gOld);
         Array.Copy(_gNew, _gOld, _gOld.Length);
         _h = _options.FixedStep ?? _options.RestartStep;
@@ -383,37 +383,46 @@ public sealed partial class TransientSolver
             }
 
             _opGmin = 0; // a temporary shunt lasts one accepted step
-            Commit(t, h, landing ? bp : double.NaN, restart);
+            Commit(t, h, landing ? bp : double.NaN, restart, keepRow: fired || landing || restart);
+            StepEnd end = StepEnd.Smooth;
             if (fired)
             {
                 if (!FireEvents()) return false;
-                _needRestart = true;
-                _havePrev = false;
-                _h = _options.FixedStep ?? _options.RestartStep;
+                end = StepEnd.EventsFired;
             }
             else if (landing)
             {
                 _stats.Breakpoints++;
+                // An ideal edge leaves x_n inconsistent with the sources just after it.
+                end = SourcesJumpAt(_time.Value) ? StepEnd.SourceJump : StepEnd.Landed;
+            }
+            ContinueAfter(end, hNext, restart);
+            return _time.Value < _stop;
+        }
+    }
+
+    /// <summary>Set up the next step from how this one ended: a restart (backward Euler, history dropped) after events
+    /// and ideal edges, a step sized to the next breakpoint after a smooth landing, else the controller's proposal.</summary>
+    private void ContinueAfter(StepEnd end, double hNext, bool restart)
+    {
+        switch (end)
+        {
+            case StepEnd.EventsFired:
+            case StepEnd.SourceJump:
+                _needRestart = true;
+                _havePrev = false;
+                _h = _options.FixedStep ?? _options.RestartStep;
+                break;
+            case StepEnd.Landed:
                 double tNow = _time.Value;
-                if (SourcesJumpAt(tNow))
-                {
-                    // An ideal edge: x_n is inconsistent with the sources just after it. Restart with backward Euler.
-                    _needRestart = true;
-                    _havePrev = false;
-                    _h = _options.FixedStep ?? _options.RestartStep;
-                    return _time.Value < _stop;
-                }
-                double next = NextBreakpoint(tNow);
-                double hSharp = (next - tNow) / 10.0;
+                double hSharp = (NextBreakpoint(tNow) - tNow) / 10.0;
                 _h = _options.FixedStep ?? Math.Min(hNext, Math.Max(hSharp, _options.RestartStep));
                 if (restart) _needRestart = false;
-            }
-            else
-            {
+                break;
+            default:
                 _h = hNext;
                 if (restart) _needRestart = false;
-            }
-            return _time.Value < _stop;
+                break;
         }
     }
 
@@ -439,7 +448,7 @@ public sealed partial class TransientSolver
     }
 
     /// <summary>Make the point (t + h) the accepted point.</summary>
-    private void Commit(double t, double h, double landAt, bool restart)
+    private void Commit(double t, double h, double landAt, bool restart, bool keepRow)
     {
         if (_havePrev || restart)
         {
@@ -464,7 +473,7 @@ public sealed partial class TransientSolver
         _ctx.Time = tNow;
         _ctx.SourceScale = SourceScaleAt(tNow);
         foreach (Device d in _devices) d.Accept(_ctx);
-        RecordPoint();
+        RecordPoint(keepRow);
         if (_eventSource.Length > 0)
         {
             EvaluateEvents(_x, tNow, _gNew, _gOld);
@@ -473,7 +482,7 @@ public sealed partial class TransientSolver
         Accepted?.Invoke(this);
     }
 
-    private void RecordPoint() => _recorder?.Record(_time.Value, _x);
+    private void RecordPoint(bool keepRow) => _recorder?.Record(_time.Value, _x, keepRow);
 
     // ---------------------------------------------------------------- integration formulas
 
