@@ -58,7 +58,8 @@ internal static class SimulateNight
         try
         {
             int code = Run(s, loaded.Definition!, scenario, dir, console, output, error);
-            done = code != CliErrors.Unexpected;
+            // A simulation failure keeps its partial outputs (report-partial.json and the rest) in the folder.
+            done = code != CliErrors.Unexpected || File.Exists(Path.Combine(dir, "report-partial.json"));
             return code;
         }
         finally
@@ -203,6 +204,8 @@ internal static class SimulateNight
     /// <summary>Plots of an earlier run in the same folder would sit beside the new ones and mislead: remove them.</summary>
     private static void RemoveOldPlots(string dir)
     {
+        // The partial outputs of an earlier failed run no longer describe this folder's complete run.
+        foreach (string f in Directory.EnumerateFiles(dir, "*-partial.*")) File.Delete(f);
         foreach (string pattern in (string[])["night-*", "zoom-*", "detail-*"])
         {
             foreach (string f in Directory.EnumerateFiles(dir, pattern))

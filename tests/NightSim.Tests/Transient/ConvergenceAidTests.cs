@@ -1,4 +1,6 @@
 using NightSim.Devices;
+using NightSim.Analysis;
+using NightSim.Mna;
 using NightSim.Netlist;
 using NightSim.Reporting;
 using NightSim.Results;
