@@ -59,7 +59,7 @@ internal static class SimulateNight
         {
             int code = Run(s, loaded.Definition!, scenario, dir, console, output, error);
             // A simulation failure keeps its partial outputs (report-partial.json and the rest) in the folder.
-            done = code != CliErrors.Unexpected || File.Exists(Path.Combine(dir, "report-partial.json"));
+            done = code is not (CliErrors.Unexpected or CliErrors.Interrupted) || File.Exists(Path.Combine(dir, "report-partial.json"));
             return code;
         }
         finally
@@ -83,6 +83,18 @@ internal static class SimulateNight
 
     private static int Run(Settings s, NetlistDefinition netlist, LightScenario scenario, string dir, IAnsiConsole console, TextWriter output, TextWriter error)
     {
+        // Ctrl+C and SIGTERM stop the run at its next step; what finished is kept as a partial report.
+        using var interrupt = new CancellationTokenSource();
+        using var sigterm = System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGTERM, ctx =>
+        {
+            ctx.Cancel = true;
+            interrupt.Cancel();
+        });
+        using var sigint = System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGINT, ctx =>
+        {
+            ctx.Cancel = true;
+            interrupt.Cancel();
+        });
         if (s.Nights is int n) scenario = scenario with { Nights = n };
 
         var request = new NightRunRequest
@@ -93,6 +105,7 @@ internal static class SimulateNight
             ScenarioPath = s.ScenarioPath,
             Tool = "nightsim " + typeof(SimulateNight).Assembly.GetName().Version?.ToString(3),
             Options = Transient.TransientOptions.ForAccuracy(s.Accuracy) ?? Transient.TransientOptions.Default,
+            Cancellation = interrupt.Token,
         };
         // Progress goes to standard error, so standard output carries only the report (redirect it to a file freely).
         var progress = new ProgressReporter(Terminal.For(error), enabled: !s.NoProgress && s.Format == "text");
@@ -103,8 +116,18 @@ internal static class SimulateNight
         {
             string clock = ReportText.Clock(result.Facts.Clock(failure.Time));
             error.WriteLine($"{s.NetlistPath}: simulation failed at {clock} (run time {failure.Time.ToString("0.######", CultureInfo.InvariantCulture)} s): {failure}");
-            WritePartial(s, result, failure, clock, dir, error);
+            WritePartial(s, result, failure, failure.Time, TotalSeconds(scenario), clock, dir, error);
             return CliErrors.Unexpected;
+        }
+        if (result.Simulation.Interrupted)
+        {
+            double reached = result.Simulation.StopTime;
+            string clock = ReportText.Clock(result.Facts.Clock(reached));
+            double done = 100.0 * reached / Math.Max(reached, TotalSeconds(scenario));
+            error.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"{s.NetlistPath}: interrupted at {clock} (run time {reached:0.###} s, {done:0.#} % of the run)"));
+            WritePartial(s, result, null, reached, TotalSeconds(scenario), clock, dir, error);
+            return CliErrors.Interrupted;
         }
 
         NightReport report = result.Report;
@@ -157,17 +180,17 @@ internal static class SimulateNight
     /// failure: time, worst nodes with values, parts, hint), trace-partial.csv up to the failure and a plot of the last
     /// stretch before it (last-seconds-partial.svg/png). Complete outputs of an earlier run in the folder stay as they are.
     /// </summary>
-    private static void WritePartial(Settings s, NightRunResult result, Results.SimulationFailure failure, string clock, string dir, TextWriter error)
+    private static void WritePartial(Settings s, NightRunResult result, Results.SimulationFailure? failure, double reached, double planned, string clock, string dir, TextWriter error)
     {
         var written = new List<string>();
         string reportPath = Path.Combine(dir, "report-partial.json");
-        PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, result.Facts.Duration, failure.Time, clock,
+        PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, Math.Max(planned, reached), reached, clock,
             failure, result.Simulation.Statistics), reportPath);
         written.Add(reportPath);
         string tracePath = Path.Combine(dir, "trace-partial.csv");
         CsvTraceWriter.Write(result.Traces, tracePath);
         written.Add(tracePath);
-        if (!s.NoPlots && LastStretch(result, failure) is { } data)
+        if (!s.NoPlots && LastStretch(result, reached, failure?.Reason ?? "interrupted") is { } data)
         {
             PlotFiles files = PlotWriter.Write(NightPlotBuilder.Build(data), dir, data.FileStem);
             written.Add(files.SvgPath);
@@ -177,10 +200,10 @@ internal static class SimulateNight
     }
 
     /// <summary>The recorded node voltages over the last stretch before the failure (the last 200 recorded points).</summary>
-    private static PlotData? LastStretch(NightRunResult result, Results.SimulationFailure failure)
+    private static PlotData? LastStretch(NightRunResult result, double reached, string reason)
     {
         var series = new List<PlotSeries>();
-        double from = failure.Time;
+        double from = reached;
         foreach (Results.Trace t in result.Simulation.Traces)
         {
             if (t.Unit != "V" || t.Times.Count == 0) continue;
@@ -188,18 +211,22 @@ internal static class SimulateNight
             from = Math.Min(from, t.Times[start]);
             series.Add(new PlotSeries($"node {t.Name}", "V", PlotPanel.Voltages, [.. t.Times.Skip(start)], [.. t.Values.Skip(start)]));
         }
-        if (series.Count == 0 || !(failure.Time > from)) return null;
+        if (series.Count == 0 || !(reached > from)) return null;
         return new PlotData
         {
-            Title = $"Last stretch before the failure (partial): {failure.Reason}",
+            Title = $"Last stretch before the run stopped (partial): {reason}",
             Origin = result.Simulation.Origin ?? DateTimeOffset.UnixEpoch,
             From = from,
-            To = failure.Time,
+            To = reached,
             Series = series,
-            Markers = [new PlotMarker(failure.Time, "failure", Emphasis: true)],
+            Markers = [new PlotMarker(reached, "stopped", Emphasis: true)],
             FileStem = "last-seconds-partial",
         };
     }
+
+    /// <summary>Run seconds of the whole scenario window, nights × 24 h from local noon (a night across a daylight-saving
+    /// change is an hour shorter or longer: the fraction done is approximate there).</summary>
+    private static double TotalSeconds(LightScenario scenario) => scenario.Nights * 86400.0;
 
     /// <summary>Plots of an earlier run in the same folder would sit beside the new ones and mislead: remove them.</summary>
     private static void RemoveOldPlots(string dir)

@@ -46,7 +46,7 @@ public static class NightRun
 
         Circuit circuit = Circuit.FromDevices(net.Name, devices, light);
         TransientOptions options = request.Options with { RecordNodes = nodes, ConstantLux = request.ConstantLux };
-        var solver = new TransientSolver(circuit, options, light);
+        var solver = new TransientSolver(circuit, options, light) { Cancellation = request.Cancellation };
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
         var zoomIndices = nodes.Select(circuit.IndexOf).ToList();

@@ -265,7 +265,7 @@ public sealed partial class TransientSolver
     /// <summary>Take one accepted step (possibly after rejections). False when the run is over (done or failed).</summary>
     internal bool Advance()
     {
-        if (_failure is not null) return false;
+        if (_failure is not null || StopRequested()) return false;
         double t = _time.Value;
         if (t >= _stop) return false;
         // Smallest step: a couple of ulps of the absolute time, so that t + γh is still a distinct time for the devices;
@@ -275,6 +275,7 @@ public sealed partial class TransientSolver
 
         while (true)
         {
+            if (StopRequested()) return false;
             // PlanStep: controller proposal, limits, breakpoint landing without sliver steps.
             double bp = NextBreakpoint(t);
             double h = Math.Min(_h, _maxStep);
@@ -434,7 +435,7 @@ public sealed partial class TransientSolver
         _stats.CpuSeconds = (Environment.CpuUsage.TotalTime.Ticks - _cpuStart) / (double)TimeSpan.TicksPerSecond;
         if (_failure is { } f) _failure = DescribeFailure(f);
         return new SimulationResult(_recorder?.Build() ?? [], [.. _eventLog.Events], _stats,
-            _failure?.Time ?? _time.Value, _light?.Origin, _failure);
+            _failure?.Time ?? _time.Value, _light?.Origin, _failure) { Interrupted = _interrupted && _failure is null };
     }
 
     private double ProposeStep(double h, double r)
