@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using NightSim.Cli.Plotting;
 using NightSim.Cli.Rendering;
 using NightSim.Netlist;
@@ -83,18 +84,18 @@ internal static class SimulateNight
 
     private static int Run(Settings s, NetlistDefinition netlist, LightScenario scenario, string dir, IAnsiConsole console, TextWriter output, TextWriter error)
     {
-        // Ctrl+C and SIGTERM stop the run at its next step; what finished is kept as a partial report.
+        // Ctrl+C and SIGTERM stop the run at its next step; what finished is kept as a partial report. Before the first
+        // step there is nothing to keep, and the signal ends the process at once as usual.
         using var interrupt = new CancellationTokenSource();
-        using var sigterm = System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGTERM, ctx =>
+        var stepping = new StrongBox<bool>();
+        void OnSignal(System.Runtime.InteropServices.PosixSignalContext ctx)
         {
+            if (!Volatile.Read(ref stepping.Value)) return;
             ctx.Cancel = true;
             interrupt.Cancel();
-        });
-        using var sigint = System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGINT, ctx =>
-        {
-            ctx.Cancel = true;
-            interrupt.Cancel();
-        });
+        }
+        using var sigterm = System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGTERM, OnSignal);
+        using var sigint = System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGINT, OnSignal);
         if (s.Nights is int n) scenario = scenario with { Nights = n };
 
         var request = new NightRunRequest
@@ -110,7 +111,7 @@ internal static class SimulateNight
         // Progress goes to standard error, so standard output carries only the report (redirect it to a file freely).
         var progress = new ProgressReporter(Terminal.For(error), enabled: !s.NoProgress && s.Format == "text");
         int nights = scenario.Nights;
-        NightRunResult result = progress.Run(p => NightRun.Run(request, new Progress(p, nights)));
+        NightRunResult result = progress.Run(p => NightRun.Run(request, new Progress(p, nights, stepping)));
 
         if (result.Simulation.Failure is { } failure)
         {
@@ -251,10 +252,11 @@ internal static class SimulateNight
     }
 
     /// <summary>Maps the run's overall fraction to night-by-night progress.</summary>
-    private sealed class Progress(IProgress<NightProgress> inner, int nights) : IProgress<double>
+    private sealed class Progress(IProgress<NightProgress> inner, int nights, StrongBox<bool> stepping) : IProgress<double>
     {
         public void Report(double value)
         {
+            Volatile.Write(ref stepping.Value, true);
             double x = Math.Clamp(value, 0, 1) * nights;
             int night = Math.Min(nights, (int)Math.Floor(x) + 1);
             inner.Report(new NightProgress(night, nights, x - (night - 1)));

@@ -57,23 +57,22 @@ public sealed class InterruptionTests
                 RedirectStandardOutput = true,
             };
             foreach (string a in (string[])[Path.Combine(AppContext.BaseDirectory, "nightsim.dll"), "simulate",
-                Path.Combine(RepoPaths.Netlists, "garden-path-driveway.json"), "--nights", "3000", "--out", dir, "--no-plots"])
+                Path.Combine(RepoPaths.Netlists, "garden-path-driveway.json"), "--nights", "400", "--out", dir, "--no-plots"])
                 start.ArgumentList.Add(a);
             using Process p = Process.Start(start)!;
-            var stderr = p.StandardError.ReadToEndAsync();
             var stdout = p.StandardOutput.ReadToEndAsync();
-            // Wait until the run is under way: the output folder exists once the inputs are read.
-            var wait = Stopwatch.StartNew();
-            while (!Directory.Exists(dir) && !p.HasExited && wait.Elapsed < TimeSpan.FromSeconds(60)) await Task.Delay(50);
-            await Task.Delay(1000);
+            // Wait until the run is stepping: its first progress line on standard error.
+            var err = new System.Text.StringBuilder();
+            string? first = await p.StandardError.ReadLineAsync();
+            err.AppendLine(first);
             Assert.False(p.HasExited, "the run ended before it could be interrupted");
             using (Process kill = Process.Start("kill", ["-TERM", p.Id.ToString(System.Globalization.CultureInfo.InvariantCulture)])!) kill.WaitForExit();
             using var timeout = new CancellationTokenSource(TimeSpan.FromSeconds(60));
             await p.WaitForExitAsync(timeout.Token);
-            string err = await stderr;
+            err.Append(await p.StandardError.ReadToEndAsync());
             _ = await stdout;
             Assert.Equal(130, p.ExitCode);
-            Assert.Contains("interrupted at", err, StringComparison.Ordinal);
+            Assert.Contains("interrupted at", err.ToString(), StringComparison.Ordinal);
             string report = File.ReadAllText(Path.Combine(dir, "report-partial.json"));
             Assert.Contains("\"partial\": true", report, StringComparison.Ordinal);
             Assert.Contains("\"stoppedBy\": \"interruption\"", report, StringComparison.Ordinal);
