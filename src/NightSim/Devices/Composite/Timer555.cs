@@ -39,6 +39,8 @@ public static class Timer555
     private static readonly ParameterSpec s_outputResistanceLow = ParameterSpec.Number("outputResistanceLow", "Ω", "Output resistance when sinking (bipolar 10 Ω, CMOS 20 Ω; from memory)") with { Min = 1e-3, Max = 1e6 };
     private static readonly ParameterSpec s_thresholdOffset = ParameterSpec.Number("thresholdOffset", "V", "Threshold comparator offset (threshold spread)") with { Default = 0.0, Min = -10, Max = 10 };
     private static readonly ParameterSpec s_triggerOffset = ParameterSpec.Number("triggerOffset", "V", "Trigger comparator offset: fires when trigger < control/2 − offset") with { Default = 0.0, Min = -10, Max = 10 };
+    private static readonly ParameterSpec s_offsetTolerance = ParameterSpec.Number("offsetTolerance", "V", "Spread of the threshold and trigger comparator offsets between parts (±), for `nightsim spread` (from memory: divider mismatch and comparator offset, tens of millivolts).") with { Default = 0.05, Min = 0, Max = 5 };
+    private static readonly ParameterSpec s_inputCurrentTolerance = ParameterSpec.Number("inputCurrentTolerance", "", "Relative spread of the threshold and trigger input currents between parts, for `nightsim spread`.") with { Default = 0.5, Min = 0, Max = 0.99 };
     private static readonly ParameterSpec s_hysteresis = ParameterSpec.Number("hysteresis", "V", "Hysteresis of the internal comparators") with { Default = 1e-3, Min = 0, Max = 1 };
     private static readonly ParameterSpec s_transition = ParameterSpec.Number("transition", "s", "Transition time of the internal comparators, latch and output") with { Default = 1e-6, Min = 1e-12, Max = 1e-3 };
 
@@ -71,6 +73,7 @@ public static class Timer555
             s_variant, s_inputCurrents, s_thresholdCurrent, s_triggerCurrent, s_resetCurrent, s_resetThreshold, s_dischargeResistance,
             s_dischargeOffResistance, s_supplyCurrent, s_supplyNominal, s_dividerResistance, s_outputDropHigh, s_outputDropLow,
             s_outputResistanceHigh, s_outputResistanceLow, s_thresholdOffset, s_triggerOffset, s_hysteresis, s_transition,
+            s_offsetTolerance, s_inputCurrentTolerance,
         ],
         Create = Expand,
     };

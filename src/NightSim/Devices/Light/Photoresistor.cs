@@ -21,6 +21,8 @@ namespace NightSim.Devices.Light;
 public sealed class Photoresistor : Device, ILightSensor
 {
     private static readonly ParameterSpec s_r10 = ParameterSpec.Number("r10", "Ω", "Resistance at 10 lx") with { Default = 15e3, Min = 1, Max = 1e9 };
+    private static readonly ParameterSpec s_r10Tolerance = ParameterSpec.Number("r10Tolerance", "", "Relative spread of r10 between parts, for `nightsim spread` (common practice: ±30 % for photoresistors).") with { Default = 0.3, Min = 0, Max = 0.9 };
+    private static readonly ParameterSpec s_gammaTolerance = ParameterSpec.Number("gammaTolerance", "", "Relative spread of gamma between parts, for `nightsim spread`.") with { Default = 0.1, Min = 0, Max = 0.9 };
     private static readonly ParameterSpec s_gamma = ParameterSpec.Number("gamma", "", "Slope γ = log10(R10/R100)") with { Default = 0.7, Min = 0.1, Max = 2 };
     private static readonly ParameterSpec s_darkResistance = ParameterSpec.Number("darkResistance", "Ω", "Dark resistance (in parallel)") with { Default = 2e6, Min = 1, Max = 1e13 };
     private static readonly ParameterSpec s_riseTime = ParameterSpec.Number("riseTime", "s", "Conductance time constant at 10 lx while light increases") with { Default = 40e-3, Min = 0, Max = 1e4 };
@@ -37,7 +39,7 @@ public sealed class Photoresistor : Device, ILightSensor
         Description = "CdS light-dependent resistor: power law in lux, dark resistance, slow decay",
         Pins = ["a", "b"],
         UsesNodeList = true,
-        Parameters = [s_r10, s_gamma, s_darkResistance, s_riseTime, s_decayTime, s_slowdown, .. LightInput.Specs],
+        Parameters = [s_r10, s_gamma, s_darkResistance, s_riseTime, s_decayTime, s_slowdown, .. LightInput.Specs, s_r10Tolerance, s_gammaTolerance],
         Create = part =>
         [
             new Photoresistor(part.Id, part.Id, part.Node("a"), part.Node("b"),
