@@ -21,6 +21,9 @@ internal static class CliErrors
     /// <summary>Exit code: an input file is invalid.</summary>
     public const int InvalidInput = 2;
 
+    /// <summary>Exit code: the run was interrupted (Ctrl+C, SIGTERM) and kept a partial report (128 + SIGINT, common practice).</summary>
+    public const int Interrupted = 130;
+
     /// <summary>Exit code: the simulation or the tool failed.</summary>
     public const int Unexpected = 3;
 

@@ -38,6 +38,12 @@ internal static class SimulateCommand
         var noProgress = new Option<bool>("--no-progress") { Description = "No progress bar or progress lines." };
         var failOn = new Option<string?>("--fail-on") { Description = "Exit with code 4 when a finding is at or above this severity.", HelpName = "warning|error" };
         failOn.AcceptOnlyFromAmong("warning", "error");
+        var accuracy = new Option<string>("--accuracy")
+        {
+            Description = "Solver tolerances: loose (faster; a way past a stage that will not settle), normal, or tight.",
+            DefaultValueFactory = _ => "normal",
+        };
+        accuracy.AcceptOnlyFromAmong("loose", "normal", "tight");
         var noPlots = new Option<bool>("--no-plots") { Description = "Skip the SVG/PNG plots (faster; report.html then has no figures)." };
         var lux = new Option<string?>("--lux")
         {
@@ -74,6 +80,7 @@ internal static class SimulateCommand
         command.Options.Add(noProgress);
         command.Options.Add(failOn);
         command.Options.Add(noPlots);
+        command.Options.Add(accuracy);
         command.SetAction(pr => CliErrors.Run(pr, (output, error) =>
         {
             FileInfo net = pr.GetValue(netlist)!;
@@ -90,7 +97,7 @@ internal static class SimulateCommand
                 if (pr.GetValue(lux) is not null)
                     error.WriteLine($"warning: --lux does not apply to a night run: the scenario {scenarioPath} lights the sensors. hint: use --for DURATION for a plain transient under constant light");
                 var settings = new SimulateNight.Settings(net.ToString(), scenarioPath, pr.GetValue(nights), pr.GetValue(outDir)!,
-                    pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots));
+                    pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots), pr.GetValue(accuracy)!);
                 return SimulateNight.Execute(settings, Terminal.For(output), output, error);
             }
             if (durationText is null)
@@ -99,13 +106,13 @@ internal static class SimulateCommand
                 return CliErrors.Usage;
             }
             StartMode startMode = pr.GetValue(start) == "operating-point" ? StartMode.OperatingPoint : StartMode.PowerUp;
-            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), startMode, output, error);
+            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), startMode, pr.GetValue(accuracy)!, output, error);
         }));
         return command;
     }
 
     private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList,
-        StartMode startMode, TextWriter output, TextWriter error)
+        StartMode startMode, string accuracy, TextWriter output, TextWriter error)
     {
         if (CliNumbers.DecimalComma(durationText))
         {
@@ -171,7 +178,7 @@ internal static class SimulateCommand
             }
         }
 
-        var options = TransientOptions.Default with { RecordNodes = record, ConstantLux = lux, Start = startMode };
+        var options = (TransientOptions.ForAccuracy(accuracy) ?? TransientOptions.Default) with { RecordNodes = record, ConstantLux = lux, Start = startMode };
         foreach ((string id, double corner) in PowerUpRamp.SourceCornersInside(circuit, options))
         {
             error.WriteLine(string.Create(CultureInfo.InvariantCulture,

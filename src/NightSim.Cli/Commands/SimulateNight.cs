@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using NightSim.Cli.Plotting;
 using NightSim.Cli.Rendering;
 using NightSim.Netlist;
@@ -23,7 +24,8 @@ internal static class SimulateNight
         string Format,
         bool NoProgress,
         string? FailOn,
-        bool NoPlots);
+        bool NoPlots,
+        string Accuracy = "normal");
 
     /// <summary>The companion scenario of a demo netlist: &lt;name&gt;.scenario.json beside &lt;name&gt;.json, or null.</summary>
     public static string? CompanionScenario(string netlistPath)
@@ -57,7 +59,8 @@ internal static class SimulateNight
         try
         {
             int code = Run(s, loaded.Definition!, scenario, dir, console, output, error);
-            done = code != CliErrors.Unexpected;
+            // A simulation failure keeps its partial outputs (report-partial.json and the rest) in the folder.
+            done = code is not (CliErrors.Unexpected or CliErrors.Interrupted) || File.Exists(Path.Combine(dir, "report-partial.json"));
             return code;
         }
         finally
@@ -81,6 +84,18 @@ internal static class SimulateNight
 
     private static int Run(Settings s, NetlistDefinition netlist, LightScenario scenario, string dir, IAnsiConsole console, TextWriter output, TextWriter error)
     {
+        // Ctrl+C and SIGTERM stop the run at its next step; what finished is kept as a partial report. Before the first
+        // step there is nothing to keep, and the signal ends the process at once as usual.
+        using var interrupt = new CancellationTokenSource();
+        var stepping = new StrongBox<bool>();
+        void OnSignal(System.Runtime.InteropServices.PosixSignalContext ctx)
+        {
+            if (!Volatile.Read(ref stepping.Value)) return;
+            ctx.Cancel = true;
+            interrupt.Cancel();
+        }
+        using var sigterm = System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGTERM, OnSignal);
+        using var sigint = System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGINT, OnSignal);
         if (s.Nights is int n) scenario = scenario with { Nights = n };
 
         var request = new NightRunRequest
@@ -90,16 +105,30 @@ internal static class SimulateNight
             Scenario = scenario,
             ScenarioPath = s.ScenarioPath,
             Tool = "nightsim " + typeof(SimulateNight).Assembly.GetName().Version?.ToString(3),
+            Options = Transient.TransientOptions.ForAccuracy(s.Accuracy) ?? Transient.TransientOptions.Default,
+            Cancellation = interrupt.Token,
         };
         // Progress goes to standard error, so standard output carries only the report (redirect it to a file freely).
         var progress = new ProgressReporter(Terminal.For(error), enabled: !s.NoProgress && s.Format == "text");
         int nights = scenario.Nights;
-        NightRunResult result = progress.Run(p => NightRun.Run(request, new Progress(p, nights)));
+        NightRunResult result = progress.Run(p => NightRun.Run(request, new Progress(p, nights, stepping)));
 
         if (result.Simulation.Failure is { } failure)
         {
-            error.WriteLine($"{s.NetlistPath}: simulation failed at {ReportText.Clock(result.Facts.Clock(failure.Time))} (run time {failure.Time.ToString("0.######", CultureInfo.InvariantCulture)} s): {failure}");
+            string clock = ReportText.Clock(result.Facts.Clock(failure.Time));
+            error.WriteLine($"{s.NetlistPath}: simulation failed at {clock} (run time {failure.Time.ToString("0.######", CultureInfo.InvariantCulture)} s): {failure}");
+            WritePartial(s, result, failure, failure.Time, TotalSeconds(scenario), clock, dir, error);
             return CliErrors.Unexpected;
+        }
+        if (result.Simulation.Interrupted)
+        {
+            double reached = result.Simulation.StopTime;
+            string clock = ReportText.Clock(result.Facts.Clock(reached));
+            double done = 100.0 * reached / Math.Max(reached, TotalSeconds(scenario));
+            error.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"{s.NetlistPath}: interrupted at {clock} (run time {reached:0.###} s, {done:0.#} % of the run)"));
+            WritePartial(s, result, null, reached, TotalSeconds(scenario), clock, dir, error);
+            return CliErrors.Interrupted;
         }
 
         NightReport report = result.Report;
@@ -147,9 +176,64 @@ internal static class SimulateNight
         return FailOn(report, s.FailOn);
     }
 
+    /// <summary>
+    /// What a failed run computed, named as partial so it is never taken for a finished run: report-partial.json (the
+    /// failure: time, worst nodes with values, parts, hint), trace-partial.csv up to the failure and a plot of the last
+    /// stretch before it (last-seconds-partial.svg/png). Complete outputs of an earlier run in the folder stay as they are.
+    /// </summary>
+    private static void WritePartial(Settings s, NightRunResult result, Results.SimulationFailure? failure, double reached, double planned, string clock, string dir, TextWriter error)
+    {
+        var written = new List<string>();
+        string reportPath = Path.Combine(dir, "report-partial.json");
+        PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, Math.Max(planned, reached), reached, clock,
+            failure, result.Simulation.Statistics), reportPath);
+        written.Add(reportPath);
+        string tracePath = Path.Combine(dir, "trace-partial.csv");
+        CsvTraceWriter.Write(result.Traces, tracePath);
+        written.Add(tracePath);
+        if (!s.NoPlots && LastStretch(result, reached, failure?.Reason ?? "interrupted") is { } data)
+        {
+            PlotFiles files = PlotWriter.Write(NightPlotBuilder.Build(data), dir, data.FileStem);
+            written.Add(files.SvgPath);
+            if (files.PngPath is not null) written.Add(files.PngPath);
+        }
+        error.WriteLine($"kept what was computed up to {clock}: {string.Join(", ", written.Select(Path.GetFileName))} in {dir}");
+    }
+
+    /// <summary>The recorded node voltages over the last stretch before the failure (the last 200 recorded points).</summary>
+    private static PlotData? LastStretch(NightRunResult result, double reached, string reason)
+    {
+        var series = new List<PlotSeries>();
+        double from = reached;
+        foreach (Results.Trace t in result.Simulation.Traces)
+        {
+            if (t.Unit != "V" || t.Times.Count == 0) continue;
+            int start = Math.Max(0, t.Times.Count - 200);
+            from = Math.Min(from, t.Times[start]);
+            series.Add(new PlotSeries($"node {t.Name}", "V", PlotPanel.Voltages, [.. t.Times.Skip(start)], [.. t.Values.Skip(start)]));
+        }
+        if (series.Count == 0 || !(reached > from)) return null;
+        return new PlotData
+        {
+            Title = $"Last stretch before the run stopped (partial): {reason}",
+            Origin = result.Simulation.Origin ?? DateTimeOffset.UnixEpoch,
+            From = from,
+            To = reached,
+            Series = series,
+            Markers = [new PlotMarker(reached, "stopped", Emphasis: true)],
+            FileStem = "last-seconds-partial",
+        };
+    }
+
+    /// <summary>Run seconds of the whole scenario window, nights × 24 h from local noon (a night across a daylight-saving
+    /// change is an hour shorter or longer: the fraction done is approximate there).</summary>
+    private static double TotalSeconds(LightScenario scenario) => scenario.Nights * 86400.0;
+
     /// <summary>Plots of an earlier run in the same folder would sit beside the new ones and mislead: remove them.</summary>
     private static void RemoveOldPlots(string dir)
     {
+        // The partial outputs of an earlier failed run no longer describe this folder's complete run.
+        foreach (string f in Directory.EnumerateFiles(dir, "*-partial.*")) File.Delete(f);
         foreach (string pattern in (string[])["night-*", "zoom-*", "detail-*"])
         {
             foreach (string f in Directory.EnumerateFiles(dir, pattern))
@@ -168,10 +252,11 @@ internal static class SimulateNight
     }
 
     /// <summary>Maps the run's overall fraction to night-by-night progress.</summary>
-    private sealed class Progress(IProgress<NightProgress> inner, int nights) : IProgress<double>
+    private sealed class Progress(IProgress<NightProgress> inner, int nights, StrongBox<bool> stepping) : IProgress<double>
     {
         public void Report(double value)
         {
+            Volatile.Write(ref stepping.Value, true);
             double x = Math.Clamp(value, 0, 1) * nights;
             int night = Math.Min(nights, (int)Math.Floor(x) + 1);
             inner.Report(new NightProgress(night, nights, x - (night - 1)));

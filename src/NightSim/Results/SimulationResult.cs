@@ -37,8 +37,12 @@ public sealed class SimulationResult
     /// <summary>Why the run stopped early, or null when it completed.</summary>
     public SimulationFailure? Failure { get; }
 
+    /// <summary>True when the run was stopped from outside (a cancellation token) before its stop time;
+    /// <see cref="StopTime"/> is then the last accepted point.</summary>
+    public bool Interrupted { get; init; }
+
     /// <summary>True when the run reached its stop time.</summary>
-    public bool Succeeded => Failure is null;
+    public bool Succeeded => Failure is null && !Interrupted;
 
     /// <summary>The trace of a node or branch label, or null.</summary>
     public Trace? Trace(string name) => Traces.FirstOrDefault(t => t.Name == name);

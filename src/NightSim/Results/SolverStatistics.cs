@@ -19,6 +19,12 @@ public sealed class SolverStatistics
     /// runs, or an edge sharper than h_min); 0 in a healthy run.</summary>
     public long ForcedSteps { get; internal set; }
 
+    /// <summary>Newton corrections scaled down by the damping of retries after a failed step.</summary>
+    public long DampedIterations { get; internal set; }
+
+    /// <summary>Times a failing step was rescued by pseudo-transient continuation (a temporary node capacitance).</summary>
+    public long Continuations { get; internal set; }
+
     /// <summary>Numeric LU factorisations.</summary>
     public long Factorizations { get; internal set; }
 

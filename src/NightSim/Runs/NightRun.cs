@@ -50,7 +50,7 @@ public static class NightRun
         // The nodes, plus each relay's coil current: the analysis compares the coil against its pull-in from it.
         List<string> recorded = [.. nodes, .. devices.Select(d => d.Role).OfType<RelayCoilRole>().Select(r => r.CoilCurrent)];
         TransientOptions options = request.Options with { RecordNodes = recorded, ConstantLux = request.ConstantLux };
-        var solver = new TransientSolver(circuit, options, light);
+        var solver = new TransientSolver(circuit, options, light) { Cancellation = request.Cancellation };
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
         var zoomIndices = nodes.Select(circuit.IndexOf).ToList();

@@ -31,4 +31,7 @@ public sealed record NightRunRequest
 
     /// <summary>Tool name and version for the report.</summary>
     public string Tool { get; init; } = "nightsim";
+
+    /// <summary>Stops the run at its next step (Ctrl+C, SIGTERM); the result is then marked interrupted.</summary>
+    public CancellationToken Cancellation { get; init; }
 }

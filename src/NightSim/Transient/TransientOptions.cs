@@ -9,6 +9,22 @@ public sealed record TransientOptions
     /// <summary>Tight settings for verification against closed forms.</summary>
     public static TransientOptions Verification { get; } = new() { RelativeTolerance = 1e-7, VoltageTolerance = 1e-9, CurrentTolerance = 1e-12, MaxStep = 1.0 };
 
+    /// <summary>Looser production settings (`--accuracy loose`): rtol 1e-3, 10 µV, 10 nA. Faster, and a way past a
+    /// stage that will not settle at the default tolerance.</summary>
+    public static TransientOptions Loose { get; } = new() { RelativeTolerance = 1e-3, VoltageTolerance = 1e-5, CurrentTolerance = 1e-8 };
+
+    /// <summary>Tighter production settings (`--accuracy tight`): rtol 1e-5, 0.1 µV, 0.1 nA.</summary>
+    public static TransientOptions Tight { get; } = new() { RelativeTolerance = 1e-5, VoltageTolerance = 1e-7, CurrentTolerance = 1e-10 };
+
+    /// <summary>The settings for an accuracy word: "loose", "normal" (the default) or "tight"; null for any other word.</summary>
+    public static TransientOptions? ForAccuracy(string word) => word switch
+    {
+        "loose" => Loose,
+        "normal" => Default,
+        "tight" => Tight,
+        _ => null,
+    };
+
     /// <summary>Integration formula.</summary>
     public IntegrationMethod Method { get; init; } = IntegrationMethod.TrBdf2;
 
@@ -58,6 +74,18 @@ public sealed record TransientOptions
 
     /// <summary>Newton iterations for the operating point.</summary>
     public int MaxOperatingPointIterations { get; init; } = 100;
+
+    /// <summary>Pseudo-transient continuation at a failing step: capacitance to ground put on every node that has no
+    /// capacitance of its own, farads (0 = off). Turns the jump of a regenerative stage into a fast transient that small
+    /// steps can follow (docs/numerics.md §6).</summary>
+    public double ContinuationCapacitance { get; init; } = 1e-12;
+
+    /// <summary>The continuation capacitance is taken away once an accepted step is this long, seconds.</summary>
+    public double ContinuationEndStep { get; init; } = 1e-4;
+
+    /// <summary>Largest node-voltage change of one Newton iteration in the retries after a failed step, volts (0 = no
+    /// damping).</summary>
+    public double NewtonVoltageStepLimit { get; init; } = 1.0;
 
     /// <summary>Junction shunt conductance, siemens.</summary>
     public double Gmin { get; init; } = 1e-12;

@@ -226,6 +226,7 @@ public sealed partial class TransientSolver
         }
 
         Evaluate(_x, 0.0);
+        FindChargeFreeNodes();
         Array.Copy(_ctx.Q, _q, _n);
         for (int i = 0; i < _n; i++) _qd[i] = -_ctx.J[i];
         SetTolerances();
@@ -270,7 +271,7 @@ public sealed partial class TransientSolver
     /// <summary>Take one accepted step (possibly after rejections). False when the run is over (done or failed).</summary>
     internal bool Advance()
     {
-        if (_failure is not null) return false;
+        if (_failure is not null || StopRequested()) return false;
         double t = _time.Value;
         if (t >= _stop) return false;
         if (TryEnvelopeJump()) return _time.Value < _stop;
@@ -281,6 +282,7 @@ public sealed partial class TransientSolver
 
         while (true)
         {
+            if (StopRequested()) return false;
             // PlanStep: controller proposal, limits, breakpoint landing without sliver steps.
             double bp = NextBreakpoint(t);
             double h = Math.Min(_h, _maxStep);
@@ -307,8 +309,18 @@ public sealed partial class TransientSolver
                 _stats.NewtonFailures++;
                 _failuresHere++;
                 _rejectedLast = true;
+                _damped = true; // retries at this point take damped Newton corrections
                 _h = h / (_failuresHere > 1 ? 8.0 : 4.0);
                 if (_failuresHere >= 2) _needRestart = true; // two failures at this point: fall back to BE
+                if (_h < hMin && StartContinuation())
+                {
+                    // Pseudo-transient continuation: a small capacitance on every node without any of its own, from
+                    // the restart step down (TransientSolver.Convergence.cs).
+                    _h = Math.Max(hMin, _options.RestartStep);
+                    _failuresHere = 0;
+                    _needRestart = true;
+                    continue;
+                }
                 if (_h < hMin && _opGmin == 0)
                 {
                     // Last resort before giving up: a temporary 1e-9 S shunt on every node for this step
@@ -322,7 +334,7 @@ public sealed partial class TransientSolver
                 {
                     _opGmin = 0;
                     _failure = new SimulationFailure(t, "Newton iteration did not converge even at the smallest step", WorstUnknowns(),
-                        "try a looser tolerance, add series resistance to ideal sources and switches, or check the worst nodes for floating parts");
+                        "try --accuracy loose; give the transistors or diodes on the worst nodes a junction capacitance (e.g. baseEmitterCapacitance \"10p\", baseCollectorCapacitance \"4p\"), or put about 1 µF from the sensor node to gnd");
                     return false;
                 }
                 continue;
@@ -345,7 +357,7 @@ public sealed partial class TransientSolver
                     if (!double.IsFinite(r) && h <= hMin * (1.0 + 1e-9))
                     {
                         _failure = new SimulationFailure(t, "the local error is not finite even at the smallest step", WorstUnknowns(),
-                            "the circuit may switch infinitely fast (an ideal loop); add a small capacitance or resistance, or loosen the tolerance");
+                            "the circuit may switch infinitely fast (an ideal loop); add a capacitor of about 1 nF from the worst node to gnd, a resistor of about 100 Ω in series with the ideal source, or try --accuracy loose");
                         return false;
                     }
                     continue;
@@ -433,13 +445,14 @@ public sealed partial class TransientSolver
         _stats.Factorizations = _solver.Factorizations;
         _stats.PivotAnalyses = _solver.Analyses;
         _stats.CpuSeconds = (Environment.CpuUsage.TotalTime.Ticks - _cpuStart) / (double)TimeSpan.TicksPerSecond;
+        if (_failure is { } f) _failure = DescribeFailure(f);
         if (_stats.AcceptedSteps > SolverStatistics.SteadyFromStep)
         {
             _stats.SteadyAllocatedBytes = GC.GetAllocatedBytesForCurrentThread() - _steadyAllocStart;
             _stats.SteadySteps = _stats.AcceptedSteps - SolverStatistics.SteadyFromStep;
         }
         return new SimulationResult(_recorder?.Build() ?? [], [.. _eventLog.Events], _stats,
-            _failure?.Time ?? _time.Value, _light?.Origin, _failure);
+            _failure?.Time ?? _time.Value, _light?.Origin, _failure) { Interrupted = _interrupted && _failure is null };
     }
 
     /// <param name="reusedLu">The step reused the previous factorisation (a linear circuit at constant h): keeping h
@@ -477,6 +490,8 @@ public sealed partial class TransientSolver
         if (_stats.AcceptedSteps == SolverStatistics.SteadyFromStep) _steadyAllocStart = GC.GetAllocatedBytesForCurrentThread();
         _rejectedLast = false;
         _failuresHere = 0;
+        _damped = false;
+        NoteContinuationStep(h);
 
         double tNow = _time.Value;
         Array.Copy(_x, _ctx.X, _n);
@@ -664,6 +679,7 @@ public sealed partial class TransientSolver
                 _factorValid = true;
             }
             _solver.Solve(rhs);
+            DampCorrection();
             bool converged = !_ctx.Limited;
             for (int i = 0; i < n; i++)
             {
@@ -718,6 +734,7 @@ public sealed partial class TransientSolver
         Array.Clear(_ctx.C);
         foreach (Device d in _devices) d.Load(_ctx);
         if (_floatingNodes.Length > 0) LoadFloatingNodeCapacitance();
+        AddContinuationCapacitance();
         if (_opGmin > 0)
         {
             int[] diag = _circuit.NodeDiagonal;
@@ -855,6 +872,23 @@ public sealed partial class TransientSolver
             }
         }
         return new TraceRecorder(indices, names, units, 0.0, stop, _options.TraceBuckets);
+    }
+
+    /// <summary>The failure with the values of its worst unknowns at the last accepted point and the parts on them.</summary>
+    private SimulationFailure DescribeFailure(SimulationFailure f)
+    {
+        var values = new List<double>();
+        var nodes = new HashSet<string>(StringComparer.Ordinal);
+        foreach (string name in f.WorstNodes)
+        {
+            int i = _circuit.IndexOf(name);
+            values.Add(i >= 0 ? _x[i] : double.NaN);
+            nodes.Add(name);
+        }
+        var parts = new List<string>();
+        foreach (Device d in _devices)
+            if (d.Nodes.Any(nodes.Contains) && !parts.Contains(d.PartId)) parts.Add(d.PartId);
+        return f with { WorstValues = values, Parts = parts };
     }
 
     private List<string> WorstUnknowns()
