@@ -168,11 +168,11 @@ public static class NightRun
             foreach (ScheduledLightEvent e in profile.ScheduledEvents)
             {
                 if (e.Kind is "lamp-coupling" or "noise") continue; // noise is listed below with its amplitude
-                events.Add(new ReportEvent(e.Kind, e.Start, e.End, e.PeakLux, e.Description));
+                events.Add(new ReportEvent(e.Kind, e.Start, e.End, e.PeakLux, e.Description) { DrawnFromSeed = e.DrawnFromSeed });
             }
             foreach (NoiseInjection n in profile.NoiseInjections)
             {
-                events.Add(new ReportEvent("noise", n.Instant, facts.Clock(n.Time + n.Width), n.Amplitude, n.Description));
+                events.Add(new ReportEvent("noise", n.Instant, facts.Clock(n.Time + n.Width), n.Amplitude, n.Description) { DrawnFromSeed = profile.IsDrawnFromSeed(n) });
             }
             events.Sort((a, b) => a.Start.CompareTo(b.Start));
         }
@@ -195,6 +195,8 @@ public static class NightRun
             Findings = findings,
             Events = events,
             Statistics = new ReportStatistics(st.AcceptedSteps, st.RejectedSteps, st.NewtonIterations, st.Events, st.CpuSeconds),
+            Parts = ReportPart.List(request.Netlist),
+            CircuitHash = ReportPart.Hash(request.Netlist),
             Cautions = TouchesMains(request.Netlist) ? ReportText.MainsCautions : [],
         };
     }
