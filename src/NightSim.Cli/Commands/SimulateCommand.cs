@@ -3,10 +3,12 @@ using System.Globalization;
 using NightSim.Netlist;
 using NightSim.Reporting;
 using NightSim.Runs;
+
 using NightSim.Results;
 using NightSim.Transient;
 using NightSim.Units;
 using NightSim.Cli.Rendering;
+using NightSim.Mna;
 
 namespace NightSim.Cli.Commands;
 
@@ -27,7 +29,8 @@ internal static class SimulateCommand
             Description = "Scenario JSON (site, dates, weather, light events). Default: <netlist>.scenario.json beside the netlist, if present.",
             HelpName = "FILE",
         };
-        var nights = new Option<int?>("--nights", "-n") { Description = "Number of nights (overrides the scenario).", HelpName = "N" };
+        var nights = CliNumbers.Whole<int?>("--nights", "Number of nights, 1 to 3660 (overrides the scenario).", 1, InputLimits.MaxNights, "nights", "-n");
+        nights.HelpName = "N";
         var format = new Option<string>("--format") { Description = "Terminal output: text (table of nights) or json (report.json).", DefaultValueFactory = _ => "text" };
         format.AcceptOnlyFromAmong("text", "json");
         var noProgress = new Option<bool>("--no-progress") { Description = "No progress bar or progress lines." };
@@ -45,7 +48,7 @@ internal static class SimulateCommand
         var command = new Command("simulate",
             "Run a netlist through the nights of a scenario and report when the load switched on, for how long and why " +
             "(report.json, report.html, trace.csv, plots). Without a scenario, --for [--lux] runs a plain transient " +
-            "(trace.csv, statistics.json). Exit 2 on invalid input, 3 when the simulation fails, 4 with --fail-on.");
+            "(trace.csv, statistics.json). Exit 1 on a command-line mistake, 2 on invalid input, 3 when the simulation fails, 4 with --fail-on, 5 when an output cannot be written.");
         command.Arguments.Add(netlist);
         command.Options.Add(duration);
         command.Options.Add(lux);
@@ -70,11 +73,6 @@ internal static class SimulateCommand
                 ?? (durationText is null ? SimulateNight.CompanionScenario(net.ToString()) : null);
             if (scenarioPath is not null)
             {
-                if (pr.GetValue(nights) is int n && n is < 1 or > 3660)
-                {
-                    error.WriteLine("--nights: give 1 to 3660 nights (ten years)");
-                    return CliErrors.InvalidInput;
-                }
                 var settings = new SimulateNight.Settings(net.ToString(), scenarioPath, pr.GetValue(nights), pr.GetValue(outDir)!,
                     pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots));
                 return SimulateNight.Execute(settings, Terminal.For(output), output, error);
@@ -82,7 +80,7 @@ internal static class SimulateCommand
             if (durationText is null)
             {
                 error.WriteLine($"{net}: no scenario given and no {Path.GetFileNameWithoutExtension(net.Name)}.scenario.json beside it. hint: add --scenario FILE for a night run, or --for DURATION (e.g. --for 10s) for a plain transient");
-                return CliErrors.InvalidInput;
+                return CliErrors.Usage;
             }
             return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), output, error);
         }));
@@ -91,16 +89,34 @@ internal static class SimulateCommand
 
     private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList, TextWriter output, TextWriter error)
     {
+        if (CliNumbers.DecimalComma(durationText))
+        {
+            error.WriteLine($"--for: \"{CliNumbers.Clip(durationText)}\" has a decimal comma. hint: write a decimal point, e.g. --for 1.5h");
+            return CliErrors.Usage;
+        }
         if (!Duration.TryParse(durationText, out double stop, out string? durationError))
         {
             error.WriteLine($"--for: {durationError}");
-            return CliErrors.InvalidInput;
+            return CliErrors.Usage;
+        }
+        if (!(stop > 0) || !double.IsFinite(stop))
+        {
+            error.WriteLine($"--for: \"{CliNumbers.Clip(durationText)}\" is not a positive duration. hint: write e.g. --for 10s, --for 90min or --for 24h");
+            return CliErrors.Usage;
         }
         double lux = 0;
-        if (luxText is not null && (!EngineeringValue.TryParse(luxText, "lx", out lux, out string? luxError) || lux < 0))
+        if (luxText is not null)
         {
-            error.WriteLine($"--lux: {(lux < 0 ? "illuminance must be ≥ 0 lx" : luxError)}");
-            return CliErrors.InvalidInput;
+            if (CliNumbers.DecimalComma(luxText))
+            {
+                error.WriteLine($"--lux: \"{CliNumbers.Clip(luxText)}\" has a decimal comma. hint: write a decimal point, e.g. --lux 2.5");
+                return CliErrors.Usage;
+            }
+            if (!EngineeringValue.TryParse(luxText, "lx", out lux, out string? luxError) || !double.IsFinite(lux) || lux < 0)
+            {
+                error.WriteLine($"--lux: {(luxError ?? $"\"{CliNumbers.Clip(luxText)}\" is not an illuminance of 0 lx or more")}. hint: write e.g. --lux 2.5");
+                return CliErrors.Usage;
+            }
         }
 
         string path = netlistFile.ToString();
@@ -108,8 +124,7 @@ internal static class SimulateCommand
         foreach (NetlistError w in loaded.Warnings) error.WriteLine(w.ToString());
         if (!loaded.IsValid)
         {
-            foreach (NetlistError e in loaded.Errors) error.WriteLine(e.ToString());
-            error.WriteLine(loaded.Errors.Count == 1 ? "1 error." : $"{loaded.Errors.Count} errors.");
+            CliErrors.WriteProblems([.. loaded.Errors.Select(e => e.ToString())], error);
             return CliErrors.InvalidInput;
         }
         NetlistDefinition def = loaded.Definition!;
@@ -127,8 +142,9 @@ internal static class SimulateCommand
             if (unknown.Count > 0)
             {
                 var known = circuit.Labels.Where((_, i) => circuit.Kinds[i] == Mna.UnknownKind.Node);
-                error.WriteLine($"--nodes: {string.Join(", ", unknown.Select(u => $"'{u}'"))} not in {path}. hint: nodes are {string.Join(", ", known)}");
-                return CliErrors.InvalidInput;
+                int total = known.Count();
+                error.WriteLine($"--nodes: {string.Join(", ", unknown.Take(5).Select(u => $"'{CliNumbers.Clip(u)}'"))} not in {path}. hint: nodes are {string.Join(", ", known.Take(20))}{(total > 20 ? $" and {total - 20} more" : "")}");
+                return CliErrors.Usage;
             }
         }
 
@@ -141,15 +157,15 @@ internal static class SimulateCommand
             return CliErrors.Unexpected;
         }
 
-        outDir.Create();
+        OutputException.Guard(outDir.FullName, () => outDir.Create());
         string tracePath = Path.Combine(outDir.FullName, "trace.csv");
         string statsPath = Path.Combine(outDir.FullName, "statistics.json");
-        AtomicFile.Write(tracePath, stream =>
+        OutputException.Guard(tracePath, () => AtomicFile.Write(tracePath, stream =>
         {
             using var writer = new StreamWriter(stream, leaveOpen: true);
             TraceCsv.Write(result.Traces, writer);
-        });
-        AtomicFile.Write(statsPath, stream => StatisticsJson.Write(result, stream));
+        }));
+        OutputException.Guard(statsPath, () => AtomicFile.Write(statsPath, stream => StatisticsJson.Write(result, stream)));
 
         var inv = CultureInfo.InvariantCulture;
         output.WriteLine($"{def.Name}: simulated {EngineeringValue.Format(stop, "s")} from power-up");

@@ -9,5 +9,6 @@ public static class AnalyzerCatalog
         new FalseTriggerAnalyzer(),
         new ChatterAnalyzer(),
         new TimerAnalyzer(),
+        new StageAnalyzer(),
     ];
 }

@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 
 namespace NightSim.Analysis;
 
@@ -9,8 +8,8 @@ public sealed class ChatterAnalyzer : IResultAnalyzer
     {
         foreach ((double start, double end, int ops) in NightAnalysis.ChatterBursts(facts, 0, double.PositiveInfinity))
         {
-            string at = ReportText.Clock(facts.Clock(start));
-            string until = ReportText.Clock(facts.Clock(end));
+            string at = Wording.Clock(facts.Clock(start));
+            string until = Wording.Clock(facts.Clock(end));
             string why = facts.LampCouplingLux > 0
                 ? $" The lamp adds {facts.LampCouplingLux:0.##} lx at its own sensor, so each switch-on brightens the sensor and each switch-off darkens it: a loop."
                 : " The switching stage has too little hysteresis for a slowly changing light level.";

@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 
 namespace NightSim.Analysis;
 
@@ -15,12 +14,12 @@ public sealed class FalseTriggerAnalyzer : IResultAnalyzer
                      .Where(iv => !iv.Expected && iv.Cause is not (LoadCause.PowerUp or LoadCause.Dusk))
                      .GroupBy(iv => iv.Cause))
         {
-            string cause = ReportText.Cause(group.Key);
+            string cause = Wording.Cause(group.Key);
             var all = group.ToList();
             foreach (AttributedInterval iv in all.Take(ListedPerCause))
             {
-                string on = ReportText.Clock(facts.Clock(iv.Start));
-                string lasted = iv.End is double e ? "for " + ReportText.Duration(e - iv.Start) : "until the end of the run";
+                string on = Wording.Clock(facts.Clock(iv.Start));
+                string lasted = iv.End is double e ? "for " + Wording.Duration(e - iv.Start) : "until the end of the run";
                 string message = $"At {on} the lamp switched on again {lasted}: {iv.Explanation}.";
                 yield return new Finding(Severity.Warning, "false-trigger-" + cause, message, Fix(group.Key), facts.Clock(iv.Start));
             }
@@ -28,7 +27,7 @@ public sealed class FalseTriggerAnalyzer : IResultAnalyzer
             {
                 AttributedInterval first = all[ListedPerCause], last = all[^1];
                 yield return new Finding(Severity.Warning, "false-trigger-" + cause,
-                    $"{all.Count - ListedPerCause} more switch-ons caused by {cause} between {ReportText.Clock(facts.Clock(first.Start))} and {ReportText.Clock(facts.Clock(last.Start))} ({all.Count} in all).",
+                    $"{all.Count - ListedPerCause} more switch-ons caused by {cause} between {Wording.Clock(facts.Clock(first.Start))} and {Wording.Clock(facts.Clock(last.Start))} ({all.Count} in all).",
                     Fix(group.Key), facts.Clock(first.Start));
             }
         }

@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 
 namespace NightSim.Analysis;
 

@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 using NightSim.Results;
 
 namespace NightSim.Analysis;
@@ -96,13 +95,13 @@ public static class LoadTimeline
         }
         if (best is not null)
         {
-            return (best.Cause, $"{best.Description} at {ReportText.Clock(facts.Clock(best.Start))}", best);
+            return (best.Cause, $"{best.Description} at {Wording.Clock(facts.Clock(best.Start))}", best);
         }
 
         if (facts.LampCouplingLux > 0 && previousEnd is double pe && t - pe <= facts.AttributionLag)
         {
             return (LoadCause.SelfIllumination,
-                $"the lamp's own light ({facts.LampCouplingLux:0.##} lx at the sensor) went out at {ReportText.Clock(facts.Clock(pe))}, and the sensor saw darkness again", null);
+                $"the lamp's own light ({facts.LampCouplingLux:0.##} lx at the sensor) went out at {Wording.Clock(facts.Clock(pe))}, and the sensor saw darkness again", null);
         }
 
         bool inDuskWindow = night is null || night.Sunset is null ||
@@ -120,8 +119,9 @@ public static class LoadTimeline
     private static (string, bool) EndedBy(RunFacts facts, double? end, HashSet<string> loadParts)
     {
         if (end is null) return ("still on at the end of the run", false);
-        // The latest timer-side discrete change just before the load went off tells why. Device events are in time
-        // order: start at the first one inside the last second (binary search; a chattering night has thousands).
+        // The timer output going low shortly before the load went off, and the input change that made it go low.
+        // Device events are in time order: start at the first one inside the last second (binary search; a
+        // chattering night has thousands).
         IReadOnlyList<DiscreteEvent> events = facts.DeviceEvents;
         int lo = 0, hi = events.Count;
         while (lo < hi)
@@ -129,15 +129,24 @@ public static class LoadTimeline
             int mid = (lo + hi) >>> 1;
             if (events[mid].Time < end.Value - 1.0) lo = mid + 1; else hi = mid;
         }
-        DiscreteEvent? last = null;
+        int outputLow = -1;
         for (int i = lo; i < events.Count && events[i].Time <= end.Value + 1e-6; i++)
         {
-            if (!loadParts.Contains(events[i].PartId)) last = events[i];
+            if (events[i].Kind == DeviceEventKind.TimerOutputLow && !loadParts.Contains(events[i].PartId)) outputLow = i;
         }
-        if (last is null) return ("switched off (relay dropped out without a timer change: supply sag?)", false);
-        string d = last.Device.ToLowerInvariant();
-        if (d.Contains("threshold", StringComparison.Ordinal)) return ("timer ran out", true);
-        if (d.Contains("reset", StringComparison.Ordinal)) return ($"reset ({last.Device} went {last.To})", false);
-        return ($"{last.Device} {last.Signal} went {last.To}", false);
+        if (outputLow < 0) return ("switched off (the relay dropped out without a timer change: supply sag?)", false);
+        string timer = events[outputLow].PartId;
+        for (int i = outputLow; i >= 0; i--)
+        {
+            DiscreteEvent e = events[i];
+            if (e.PartId != timer) continue;
+            switch (e.Kind)
+            {
+                case DeviceEventKind.ThresholdReached: return ("timer ran out", true);
+                case DeviceEventKind.TriggerReleased: return ($"timer {timer}'s trigger input was released", false);
+                case DeviceEventKind.ResetHeld: return ($"timer {timer} was reset", false);
+            }
+        }
+        return ($"timer {timer}'s output went low", false);
     }
 }

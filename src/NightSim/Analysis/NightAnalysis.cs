@@ -1,4 +1,4 @@
-using NightSim.Reporting;
+using NightSim.Units;
 
 namespace NightSim.Analysis;
 

@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 using NightSim.Results;
 
 namespace NightSim.Analysis;
@@ -34,22 +33,45 @@ public sealed record LoadTransition(double Time, bool On, string Load, double Po
 /// <param name="Darkening">True when its end makes the sensor darker than before (the edge that can fire a dusk trigger).</param>
 public sealed record EventFact(LoadCause Cause, string Kind, double Start, double End, double Peak, string Description, bool Darkening = true);
 
-/// <summary>Static facts about one 555-class one-shot, for the on-time and leakage checks.</summary>
+/// <summary>Static facts about one 555-class one-shot, for the on-time and leakage checks: the charging network the
+/// timing node sees, reduced to a source <see cref="ChargeVoltage"/> behind <see cref="Resistance"/> (the network
+/// without its drains), plus the drains as a constant current and a resistance across the capacitor.</summary>
 /// <param name="PartId">Timer part id.</param>
-/// <param name="Resistance">Timing resistance from the supply to the timing capacitor, Ω.</param>
+/// <param name="Resistance">Charging resistance seen by the timing node without the drains (Thevenin), Ω.</param>
 /// <param name="Capacitance">Timing capacitance, F.</param>
-/// <param name="SupplyVoltage">Supply, V.</param>
-/// <param name="DrainCurrent">Constant drain at the timing node (capacitor leakage + threshold input current), A.</param>
-/// <param name="LeakageResistance">Leakage as a resistance across the capacitor, Ω (∞ if none).</param>
+/// <param name="SupplyVoltage">Timer supply, V (the threshold is 2/3 of it).</param>
+/// <param name="DrainCurrent">Constant drain at the timing node (capacitor leakage current + threshold input current), A.</param>
+/// <param name="LeakageResistance">Drains that act as a resistance to ground across the capacitor, Ω (∞ if none).</param>
 public sealed record TimerFacts(string PartId, double Resistance, double Capacitance, double SupplyVoltage, double DrainCurrent, double LeakageResistance)
 {
+    /// <summary>Open-circuit voltage of the charging network without drains (Thevenin source), V; the supply for a
+    /// plain R from the supply.</summary>
+    public double? OpenVoltage { get; init; }
+
+    /// <summary>True for a CMOS timer (its input current is already negligible).</summary>
+    public bool IsCmos { get; init; }
+
+    /// <summary>The voltage the capacitor charges toward without drains, V.</summary>
+    public double ChargeVoltage => OpenVoltage ?? SupplyVoltage;
+
+    /// <summary>The threshold: 2/3 of the supply, V.</summary>
+    public double ThresholdVoltage => 2.0 * SupplyVoltage / 3.0;
+
+    /// <summary>Charging current at the threshold without drains, A: (V₀ − 2V_CC/3)/R; (V_CC/3)/R for R from the supply.</summary>
+    public double AvailableCurrent => (ChargeVoltage - ThresholdVoltage) / Resistance;
+
     /// <summary>Charging current available at the 2/3 threshold minus the drains, A (negative: never ends).
-    /// (V_CC/3)/R − I_drain − (2V_CC/3)/R_L; textbook RC charging with a constant drain.</summary>
+    /// (V₀ − 2V_CC/3)/R − I_drain − (2V_CC/3)/R_L; textbook RC charging with a constant drain.</summary>
     public double MarginCurrent =>
-        SupplyVoltage / 3.0 / Resistance - DrainCurrent - (double.IsInfinity(LeakageResistance) ? 0.0 : 2.0 * SupplyVoltage / 3.0 / LeakageResistance);
+        AvailableCurrent - DrainCurrent - (double.IsInfinity(LeakageResistance) ? 0.0 : ThresholdVoltage / LeakageResistance);
+
+    /// <summary>One-shot width without drains, s: R·C·ln(V₀/(V₀ − 2V_CC/3)) = ln 3·R·C for R from the supply.</summary>
+    public double IdealWidth => ChargeVoltage <= ThresholdVoltage
+        ? double.PositiveInfinity
+        : Resistance * Capacitance * Math.Log(ChargeVoltage / (ChargeVoltage - ThresholdVoltage));
 
     /// <summary>Closed-form one-shot width, s: from 0 V to 2/3 V_CC with R, C, a constant drain and a leakage
-    /// resistance (Thevenin: V∞ = (V_CC − I·R)·R_L/(R + R_L), τ = C·(R∥R_L)); +∞ when the threshold is never reached.</summary>
+    /// resistance (Thevenin: V∞ = (V₀/R − I)·(R∥R_L), τ = C·(R∥R_L)); +∞ when the threshold is never reached.</summary>
     public double ClosedFormWidth
     {
         get
@@ -57,14 +79,28 @@ public sealed record TimerFacts(string PartId, double Resistance, double Capacit
             double rl = LeakageResistance;
             double rPar = double.IsInfinity(rl) ? Resistance : Resistance * rl / (Resistance + rl);
             double vInf = double.IsInfinity(rl)
-                ? SupplyVoltage - DrainCurrent * Resistance
-                : (SupplyVoltage / Resistance - DrainCurrent) * rPar;
-            double vTh = 2.0 * SupplyVoltage / 3.0;
+                ? ChargeVoltage - DrainCurrent * Resistance
+                : (ChargeVoltage / Resistance - DrainCurrent) * rPar;
+            double vTh = ThresholdVoltage;
             if (vInf <= vTh) return double.PositiveInfinity;
             return rPar * Capacitance * Math.Log(vInf / (vInf - vTh));
         }
     }
 }
+
+/// <summary>A relay coil as the analysis sees it.</summary>
+/// <param name="PartId">Relay part id.</param>
+/// <param name="PullIn">Pull-in coil voltage, V.</param>
+/// <param name="DropOut">Drop-out coil voltage, V.</param>
+/// <param name="CoilPeak">Highest coil voltage within [from, to] (run seconds), V, from the run's traces; NaN when
+/// not recorded.</param>
+public sealed record RelayFacts(string PartId, double PullIn, double DropOut, Func<double, double, double> CoilPeak);
+
+/// <summary>The light sensor and its switching level.</summary>
+/// <param name="PartId">Sensor part id.</param>
+/// <param name="SwitchingLux">Light at the sensor below which the circuit switches on (found from the circuit at
+/// rest), lux; null when it could not be found.</param>
+public sealed record SensorFacts(string PartId, double? SwitchingLux);
 
 /// <summary>Everything the analysis reads about one finished run, in run seconds. Built from the simulation result,
 /// the scenario and the netlist by the caller; the analysers never see the solver.</summary>
@@ -81,6 +117,12 @@ public sealed record RunFacts
     public IReadOnlyList<EventFact> Events { get; init; } = [];
     public IReadOnlyList<DiscreteEvent> DeviceEvents { get; init; } = [];
     public IReadOnlyList<TimerFacts> Timers { get; init; } = [];
+
+    /// <summary>The relays (coil thresholds and coil voltage over time).</summary>
+    public IReadOnlyList<RelayFacts> Relays { get; init; } = [];
+
+    /// <summary>The light sensor the circuit switches on (the first one), or null.</summary>
+    public SensorFacts? Sensor { get; init; }
 
     /// <summary>Illuminance the scenario puts on the circuit's sensor channel (sky, weather and scheduled light events; not
     /// the lamp's own light), lux against run seconds; null if unknown. Used to find when the evening light fell through

@@ -1,4 +1,3 @@
-using NightSim.Reporting;
 using NightSim.Units;
 
 namespace NightSim.Analysis;
@@ -11,7 +10,7 @@ public sealed class TimerAnalyzer : IResultAnalyzer
     {
         foreach (TimerFacts t in facts.Timers)
         {
-            double available = t.SupplyVoltage / 3.0 / t.Resistance;
+            double available = t.AvailableCurrent;
             double drain = available - t.MarginCurrent;
             string avail = EngineeringValue.Format(available, "A", 3);
             string drains = EngineeringValue.Format(drain, "A", 3);
@@ -19,14 +18,18 @@ public sealed class TimerAnalyzer : IResultAnalyzer
             {
                 yield return new Finding(Severity.Error, "timer-never-ends",
                     $"Timer {t.PartId}: the timing capacitor's charging current at the 2/3 threshold is {avail}, but leakage and input current drain {drains}: the capacitor never reaches the threshold, so the timer never ends.",
-                    "Use a smaller timing resistor with a larger low-leakage capacitor, a CMOS timer, or an oscillator plus a binary counter for hours.",
+                    t.IsCmos
+                        ? "Use a smaller timing resistor with a larger low-leakage (film) capacitor, or an oscillator plus a binary counter for hours."
+                        : "Use a smaller timing resistor with a larger low-leakage capacitor, a CMOS timer (picoampere inputs), or an oscillator plus a binary counter for hours.",
                     null, t.PartId);
             }
             else if (t.MarginCurrent < 0.5 * available)
             {
                 yield return new Finding(Severity.Warning, "timer-leakage-margin",
-                    $"Timer {t.PartId}: of the {avail} charging current at the threshold, leakage and input current take {drains}; the on-time is {ReportText.Duration(t.ClosedFormWidth)} instead of {ReportText.Duration(Math.Log(3) * t.Resistance * t.Capacitance)} and moves with temperature and the capacitor's age.",
-                    "Lower the timing resistor and raise the capacitance, or use a film capacitor and a CMOS timer.",
+                    $"Timer {t.PartId}: of the {avail} charging current at the threshold, leakage and input current take {drains}; the on-time is {Wording.Duration(t.ClosedFormWidth)} instead of {Wording.Duration(t.IdealWidth)} and moves with temperature and the capacitor's age.",
+                    t.IsCmos
+                        ? "Lower the timing resistor and raise the capacitance, or use a film capacitor."
+                        : "Lower the timing resistor and raise the capacitance, or use a film capacitor and a CMOS timer.",
                     null, t.PartId);
             }
         }
@@ -37,7 +40,7 @@ public sealed class TimerAnalyzer : IResultAnalyzer
             if (iv.End is null)
             {
                 yield return new Finding(Severity.Error, "still-on-at-end",
-                    $"The lamp switched on at {ReportText.Clock(facts.Clock(iv.Start))} and was still on when the run ended {ReportText.Duration(facts.Duration - iv.Start)} later.",
+                    $"The lamp switched on at {Wording.Clock(facts.Clock(iv.Start))} and was still on when the run ended {Wording.Duration(facts.Duration - iv.Start)} later.",
                     "Check the timer's leakage margin and that the trigger is released (a trigger held low keeps the output high).",
                     facts.Clock(iv.Start));
             }
@@ -46,7 +49,7 @@ public sealed class TimerAnalyzer : IResultAnalyzer
                 double expected = facts.Timers[0].ClosedFormWidth, actual = iv.End.Value - iv.Start;
                 double dev = (actual - expected) / expected;
                 yield return new Finding(Math.Abs(dev) > 0.1 ? Severity.Warning : Severity.Info, "on-time",
-                    $"On for {ReportText.Duration(actual)} from {ReportText.Clock(facts.Clock(iv.Start))} ({iv.EndedBy}); the timer's closed form with leakage gives {ReportText.Duration(expected)} ({dev * 100:+0.0;-0.0} %).",
+                    $"On for {Wording.Duration(actual)} from {Wording.Clock(facts.Clock(iv.Start))} ({iv.EndedBy}); the timer's closed form with leakage gives {Wording.Duration(expected)} ({dev * 100:+0.0;-0.0} %).",
                     null, facts.Clock(iv.Start));
             }
         }

@@ -12,7 +12,7 @@ namespace NightSim.Devices;
 /// i = I_leak · tanh(v / 0.05 V): within ±50 mV it behaves like a resistance of 0.05 V / I_leak, above ≈ 0.15 V it
 /// is the constant I_leak, and its derivative is continuous everywhere (Newton stays well-behaved at 0 V).
 /// </remarks>
-public sealed class Capacitor : Device
+public sealed class Capacitor : Device, Roles.IDcElement
 {
     /// <summary>Voltage scale of the smooth constant-current leakage law, volts.</summary>
     public const double LeakageVoltageScale = 0.05;
@@ -85,6 +85,15 @@ public sealed class Capacitor : Device
 
     /// <summary>Unknown index of the node on the dielectric's p side (the internal node when ESR &gt; 0); valid after Setup.</summary>
     public int InnerNode => _inner;
+
+    /// <summary>Open at DC: its capacitance, and its leakage as a drain (a resistance, or the constant current it
+    /// settles to above a few tenths of a volt).</summary>
+    public void StampDc(Roles.DcNetwork network)
+    {
+        network.Capacitance(Nodes[0], Nodes[1], Capacitance);
+        if (!double.IsPositiveInfinity(LeakageResistance)) network.Conductance(Nodes[0], Nodes[1], 1.0 / LeakageResistance, drain: true);
+        if (LeakageCurrent > 0) network.Current(Nodes[0], Nodes[1], LeakageCurrent, drain: true);
+    }
 
     public override void Setup(SetupContext setup)
     {

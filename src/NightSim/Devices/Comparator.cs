@@ -1,3 +1,4 @@
+using NightSim.Results;
 using NightSim.Devices.Behavioural;
 using NightSim.Netlist;
 
@@ -13,6 +14,8 @@ namespace NightSim.Devices;
 /// an input that crosses back within the delay cancels the change).</param>
 /// <param name="Transition">Output transition time, s.</param>
 /// <param name="InitialHigh">Output state at power-up.</param>
+/// <param name="RisingMeans">What the output going high means to the analysis (inside a composite part).</param>
+/// <param name="FallingMeans">What the output going low means.</param>
 public sealed record ComparatorSettings(
     double Offset = 0.0,
     double Hysteresis = 1e-3,
@@ -21,7 +24,9 @@ public sealed record ComparatorSettings(
     double OffResistance = 1e9,
     double Delay = 0.0,
     double Transition = 1e-6,
-    bool InitialHigh = false);
+    bool InitialHigh = false,
+    DeviceEventKind RisingMeans = DeviceEventKind.Other,
+    DeviceEventKind FallingMeans = DeviceEventKind.Other);
 
 /// <summary>
 /// Voltage comparator with hysteresis, optional response delay and a finite output transition.
@@ -190,7 +195,7 @@ public sealed class Comparator : Device, IEventSource, ILogicLevel
         bool old = _outputHigh;
         _outputHigh = _decidedHigh;
         _level.Begin(time, _outputHigh ? 1.0 : 0.0);
-        events.Record(this, "output", StateWord(old), StateWord(_outputHigh));
+        events.Record(this, "output", StateWord(old), StateWord(_outputHigh), _outputHigh ? _settings.RisingMeans : _settings.FallingMeans);
         events.RequestBreakpoint(_level.End);
     }
 

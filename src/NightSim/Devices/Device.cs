@@ -31,6 +31,10 @@ public abstract class Device
     /// <summary>Node names of the device terminals, in the device's own pin order.</summary>
     public IReadOnlyList<string> Nodes { get; }
 
+    /// <summary>What this device is to the analysis (light sensor, one-shot timer, relay coil, supply), or null. A
+    /// composite states its part's role on one of its primitives.</summary>
+    public Roles.PartRole? Role { get; init; }
+
     /// <summary>Resolve nodes to unknown indices, reserve branch unknowns and matrix slots.</summary>
     public abstract void Setup(SetupContext setup);
 

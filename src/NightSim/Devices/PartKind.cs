@@ -42,4 +42,16 @@ public sealed class PartKind
 
     /// <summary>Pin pairs that are joined by an ideal voltage constraint (voltage sources), for the source-loop check.</summary>
     public bool IsVoltageSource { get; init; }
+
+    /// <summary>True for a part that faces mains (a relay switching a named load, a mains-level source): a design with
+    /// one prints the mains cautions.</summary>
+    public Func<PartDefinition, bool> FacesMains { get; init; } = _ => false;
+
+    /// <summary>Voltage from which a source counts as mains-level, V.</summary>
+    public const double MainsVoltage = 50.0;
+
+    /// <summary>Pins that must not all sit on one node: shorted together the part cannot work (a relay coil that can
+    /// never carry current, a current source driving into itself). The loader makes that an error; any other part
+    /// with every pin on one node gets a warning.</summary>
+    public IReadOnlyList<string> PinsThatMustDiffer { get; init; } = [];
 }

@@ -6,7 +6,7 @@ namespace NightSim.Devices;
 /// A potentiometer (linear track): total resistance R between pins a and b, wiper at position p (0 = at a, 1 = at b):
 /// R_a,wiper = p·R and R_wiper,b = (1 − p)·R, each at least <see cref="MinimumResistance"/> so the ends are fine.
 /// </summary>
-public sealed class Potentiometer : Device
+public sealed class Potentiometer : Device, Roles.IDcElement
 {
     /// <summary>Smallest resistance of either track section, ohms.</summary>
     public const double MinimumResistance = 1e-3;
@@ -62,6 +62,12 @@ public sealed class Potentiometer : Device
 
     /// <summary>Resistance between the wiper and b, ohms.</summary>
     public double ResistanceB { get; }
+
+    public void StampDc(Roles.DcNetwork network)
+    {
+        network.Conductance(Nodes[0], Nodes[1], 1.0 / ResistanceA);
+        network.Conductance(Nodes[1], Nodes[2], 1.0 / ResistanceB);
+    }
 
     public override void Setup(SetupContext setup)
     {

@@ -1,3 +1,4 @@
+using NightSim.Results;
 using NightSim.Devices.Behavioural;
 using NightSim.Netlist;
 
@@ -53,15 +54,17 @@ public sealed record RelayContact(string Label, string A, string B, bool Normall
 /// </remarks>
 public sealed class Relay : Device, IEventSource, ISwitchedLoad
 {
-    private static readonly ParameterSpec s_coilResistance = ParameterSpec.Number("coilResistance", "Ω", "Coil resistance") with { Default = 400.0, Min = 1e-3, Max = 1e7 };
-    private static readonly ParameterSpec s_coilInductance = ParameterSpec.Number("coilInductance", "H", "Coil inductance") with { Default = 0.5, Min = 1e-9, Max = 1e3 };
-    private static readonly ParameterSpec s_pullIn = ParameterSpec.Number("pullIn", "V", "Pull-in (must-operate) coil voltage") with { Default = 9.0, Min = 1e-3, Max = 1e4 };
-    private static readonly ParameterSpec s_dropOut = ParameterSpec.Number("dropOut", "V", "Drop-out (must-release) coil voltage; above 0 V (a relay at 0 V would never release)") with { Default = 1.2, Min = 1e-3, Max = 1e4 };
-    private static readonly ParameterSpec s_operateTime = ParameterSpec.Number("operateTime", "s", "Armature travel time after pull-in") with { Default = 3e-3, Min = 0, Max = 10 };
-    private static readonly ParameterSpec s_releaseTime = ParameterSpec.Number("releaseTime", "s", "Armature travel time after drop-out") with { Default = 2e-3, Min = 0, Max = 10 };
-    private static readonly ParameterSpec s_contactResistance = ParameterSpec.Number("contactResistance", "Ω", "Closed contact resistance") with { Default = 0.05, Min = 1e-6, Max = 1e3 };
-    private static readonly ParameterSpec s_openResistance = ParameterSpec.Number("openResistance", "Ω", "Open contact resistance") with { Default = 1e12, Min = 1e3, Max = 1e18 };
-    private static readonly ParameterSpec s_transition = ParameterSpec.Number("transition", "s", "Contact transition time") with { Default = 1e-6, Min = 1e-12, Max = 1.0 };
+    // The defaults are written once, in RelaySettings; the netlist parameters take theirs from there.
+    private static readonly RelaySettings s_defaults = new();
+    private static readonly ParameterSpec s_coilResistance = ParameterSpec.Number("coilResistance", "Ω", "Coil resistance") with { Default = s_defaults.CoilResistance, Min = 1e-3, Max = 1e7 };
+    private static readonly ParameterSpec s_coilInductance = ParameterSpec.Number("coilInductance", "H", "Coil inductance") with { Default = s_defaults.CoilInductance, Min = 1e-9, Max = 1e3 };
+    private static readonly ParameterSpec s_pullIn = ParameterSpec.Number("pullIn", "V", "Pull-in (must-operate) coil voltage") with { Default = s_defaults.PullIn, Min = 1e-3, Max = 1e4 };
+    private static readonly ParameterSpec s_dropOut = ParameterSpec.Number("dropOut", "V", "Drop-out (must-release) coil voltage; above 0 V (a relay at 0 V would never release)") with { Default = s_defaults.DropOut, Min = 1e-3, Max = 1e4 };
+    private static readonly ParameterSpec s_operateTime = ParameterSpec.Number("operateTime", "s", "Armature travel time after pull-in") with { Default = s_defaults.OperateTime, Min = 0, Max = 10 };
+    private static readonly ParameterSpec s_releaseTime = ParameterSpec.Number("releaseTime", "s", "Armature travel time after drop-out") with { Default = s_defaults.ReleaseTime, Min = 0, Max = 10 };
+    private static readonly ParameterSpec s_contactResistance = ParameterSpec.Number("contactResistance", "Ω", "Closed contact resistance") with { Default = s_defaults.ContactResistance, Min = 1e-6, Max = 1e3 };
+    private static readonly ParameterSpec s_openResistance = ParameterSpec.Number("openResistance", "Ω", "Open contact resistance") with { Default = s_defaults.OpenResistance, Min = 1e3, Max = 1e18 };
+    private static readonly ParameterSpec s_transition = ParameterSpec.Number("transition", "s", "Contact transition time") with { Default = s_defaults.Transition, Min = 1e-12, Max = 1.0 };
     private static readonly ParameterSpec s_load = new("load", ParameterType.Text, "", "Name of a load switched by the contacts (for energy and light reports), e.g. \"lamp\"");
     private static readonly ParameterSpec s_loadPower = ParameterSpec.Number("loadPower", "W", "Power of the named load when on") with { Min = 0, Max = 1e5 };
     private static readonly ParameterSpec s_loadContact = ParameterSpec.Word("loadContact", "Which contact switches the named load on", "no", "nc") with { DefaultText = "no" };
@@ -72,8 +75,10 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         Description = "Relay: R-L coil, pull-in/drop-out hysteresis, operate/release times, changeover contacts, named load",
         Pins = ["coilA", "coilB", "com", "no", "nc", "com2", "no2", "nc2"],
         OptionalPins = ["com", "no", "nc", "com2", "no2", "nc2"],
+        PinsThatMustDiffer = ["coilA", "coilB"],
         Parameters = [s_coilResistance, s_coilInductance, s_pullIn, s_dropOut, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact],
         Check = CheckDefinition,
+        FacesMains = part => part.Parameters.Has(s_load.Name),
         Create = part => [FromDefinition(part)],
     };
 
@@ -105,6 +110,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         _contactA = new int[_contacts.Length];
         _contactB = new int[_contacts.Length];
         _contactSlots = new PairSlots[_contacts.Length];
+        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullIn, settings.DropOut, settings.CoilResistance);
         PowerUp();
     }
 
@@ -250,7 +256,8 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         {
             bool old = _energised;
             _energised = !_energised;
-            events.Record(this, "coil", old ? "pulled in" : "released", _energised ? "pulled in" : "released");
+            events.Record(this, "coil", old ? "pulled in" : "released", _energised ? "pulled in" : "released",
+                _energised ? DeviceEventKind.CoilPulledIn : DeviceEventKind.CoilReleased);
             if (_energised == _operated)
             {
                 _travelling = false; // dropped back before the armature moved: nothing changes
@@ -290,10 +297,12 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         for (int k = 0; k < _contacts.Length; k++)
         {
             bool closed = IsContactClosed(k);
-            events.Record(this, "contact " + _contacts[k].Label, closed ? "open" : "closed", closed ? "closed" : "open");
+            events.Record(this, "contact " + _contacts[k].Label, closed ? "open" : "closed", closed ? "closed" : "open",
+                _operated ? DeviceEventKind.RelayOperated : DeviceEventKind.RelayReleased);
         }
         if (_settings.LoadName is not null && wasLoadOn != LoadOn)
-            events.Record(this, "load " + _settings.LoadName, wasLoadOn ? "on" : "off", LoadOn ? "on" : "off");
+            events.Record(this, "load " + _settings.LoadName, wasLoadOn ? "on" : "off", LoadOn ? "on" : "off",
+                LoadOn ? DeviceEventKind.LoadOn : DeviceEventKind.LoadOff);
         events.RequestBreakpoint(_armature.End);
     }
 }

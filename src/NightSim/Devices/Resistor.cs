@@ -3,7 +3,7 @@ using NightSim.Netlist;
 namespace NightSim.Devices;
 
 /// <summary>A linear resistor between pins a and b: i = (v_a − v_b) / R.</summary>
-public sealed class Resistor : Device
+public sealed class Resistor : Device, Roles.IDcElement
 {
     private int _a;
     private int _b;
@@ -35,6 +35,8 @@ public sealed class Resistor : Device
 
     /// <summary>Resistance in ohms.</summary>
     public double Resistance { get; }
+
+    public void StampDc(Roles.DcNetwork network) => network.Conductance(Nodes[0], Nodes[1], 1.0 / Resistance);
 
     public override void Setup(SetupContext setup)
     {

@@ -23,6 +23,9 @@ public abstract class SetupContext
     /// <summary>Index of a light channel by name (default "sensor"); -1 if the run has no such channel.</summary>
     public abstract int LightChannel(string name);
 
+    /// <summary>True when the run has a light signal (then every light sensor's channel must exist in it).</summary>
+    public virtual bool HasLightSignal => false;
+
     /// <summary>Reserve the four slots of a conductance between nodes a and b.</summary>
     public PairSlots Pair(int a, int b) => new(Slot(a, a), Slot(a, b), Slot(b, a), Slot(b, b));
 

@@ -1,3 +1,4 @@
+using NightSim.Results;
 using NightSim.Devices.Behavioural;
 using NightSim.Netlist;
 
@@ -10,12 +11,16 @@ namespace NightSim.Devices;
 /// <param name="Transition">Output transition time, s.</param>
 /// <param name="ClearActiveAtPowerUp">True when the clear input is taken as active at power-up (it follows a rising
 /// supply, e.g. a reset comparator that powers up active).</param>
+/// <param name="RisingMeans">What q going high means to the analysis (inside a composite part).</param>
+/// <param name="FallingMeans">What q going low means.</param>
 public sealed record SrLatchSettings(
     bool ResetDominant = true,
     double Hysteresis = 0.1,
     double OutputResistance = 100.0,
     double Transition = 1e-6,
-    bool ClearActiveAtPowerUp = false);
+    bool ClearActiveAtPowerUp = false,
+    DeviceEventKind RisingMeans = DeviceEventKind.Other,
+    DeviceEventKind FallingMeans = DeviceEventKind.Other);
 
 /// <summary>
 /// Set-reset latch with logic inputs read against half the supply (with hysteresis), outputs q and not-q as push-pull
@@ -152,7 +157,7 @@ public sealed class SrLatch : Device, IEventSource, ILogicLevel
         bool old = _stateHigh;
         _stateHigh = next;
         _level.Begin(ctx.Time, next ? 1.0 : 0.0);
-        events.Record(this, "q", old ? "high" : "low", next ? "high" : "low");
+        events.Record(this, "q", old ? "high" : "low", next ? "high" : "low", next ? _settings.RisingMeans : _settings.FallingMeans);
         events.RequestBreakpoint(_level.End);
     }
 

@@ -14,6 +14,7 @@ public sealed class VoltageSource : Device
         : base(name, partId, [nodeP, nodeN])
     {
         Waveform = waveform;
+        if (waveform.Shape == WaveformShape.Dc && Netlist.Ground.Is(nodeN)) Role = new Roles.FixedSupplyRole(partId, nodeP, waveform.Value(0.0));
     }
 
     /// <summary>Netlist kind "voltage-source": nodes [p, n] (p is +), one of constant, pulse, sine, points in volts.</summary>
@@ -28,6 +29,7 @@ public sealed class VoltageSource : Device
         Create = def => [new VoltageSource(def.Id, def.Id, def.Node("p"), def.Node("n"), Waveform.FromParameters(def.Parameters))],
         ConductsDc = true,
         IsVoltageSource = true,
+        FacesMains = def => Waveform.FromParameters(def.Parameters).PeakMagnitude >= PartKind.MainsVoltage,
     };
 
     /// <summary>Source value against time, volts.</summary>

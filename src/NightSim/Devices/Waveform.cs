@@ -144,6 +144,13 @@ public sealed class Waveform
     public double MaxStep => Shape == WaveformShape.Sine && _values[2] > 0 ? 1.0 / (StepsPerSinePeriod * _values[2]) : double.PositiveInfinity;
 
     /// <summary>Value at run time <paramref name="time"/> (seconds), in the source's unit. Pure.</summary>
+    /// <summary>The largest magnitude the waveform reaches, in its unit.</summary>
+    public double PeakMagnitude => Shape switch
+    {
+        WaveformShape.Sine => Math.Abs(_values[0]) + Math.Abs(_values[1]),
+        _ => _values.Length == 0 ? 0.0 : _values.Max(Math.Abs),
+    };
+
     public double Value(double time)
     {
         switch (Shape)

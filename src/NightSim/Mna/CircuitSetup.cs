@@ -1,3 +1,4 @@
+using NightSim.Netlist;
 using NightSim.Devices;
 using NightSim.Sky;
 
@@ -19,7 +20,7 @@ internal sealed class CircuitSetup : SetupContext
     public List<UnknownKind> Kinds { get; } = [];
 
     /// <summary>True for the names that mean ground.</summary>
-    public static bool IsGround(string name) => name is "0" or "gnd" or "GND";
+    public static bool IsGround(string name) => Ground.Is(name);
 
     public override int Node(string name)
     {
@@ -37,6 +38,8 @@ internal sealed class CircuitSetup : SetupContext
     public override int Slot(int row, int col) => Pattern.Reserve(row, col);
 
     public override int LightChannel(string name) => _light?.ChannelIndex(name) ?? -1;
+
+    public override bool HasLightSignal => _light is not null;
 
     private int Add(string label, UnknownKind kind)
     {

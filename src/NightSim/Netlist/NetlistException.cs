@@ -1,3 +1,4 @@
+using NightSim.Inputs;
 namespace NightSim.Netlist;
 
 /// <summary>A netlist could not be loaded; carries every problem found.</summary>

@@ -1,4 +1,5 @@
 using System.Text.Json;
+using NightSim.Analysis;
 
 namespace NightSim.Reporting;
 

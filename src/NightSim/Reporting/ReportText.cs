@@ -10,32 +10,13 @@ public static class ReportText
     public static string Iso(DateTimeOffset t) => t.ToString("yyyy-MM-dd'T'HH:mm:sszzz", CultureInfo.InvariantCulture);
 
     /// <summary>Clock time for tables: 17:42:05.</summary>
-    public static string Clock(DateTimeOffset? t) => t is null ? "—" : t.Value.ToString("HH:mm:ss", CultureInfo.InvariantCulture);
+    public static string Clock(DateTimeOffset? t) => Wording.Clock(t);
 
     /// <summary>Duration as "4 h 10 min", "12 min 5 s" or "3.2 s".</summary>
-    public static string Duration(double seconds)
-    {
-        if (double.IsNaN(seconds)) return "—";
-        if (seconds < 60) return seconds.ToString(seconds < 10 ? "0.##" : "0", CultureInfo.InvariantCulture) + " s";
-        long s = (long)Math.Round(seconds);
-        long h = s / 3600, m = s % 3600 / 60, sec = s % 60;
-        if (h > 0) return m > 0 ? $"{h} h {m} min" : $"{h} h";
-        return sec > 0 ? $"{m} min {sec} s" : $"{m} min";
-    }
+    public static string Duration(double seconds) => Wording.Duration(seconds);
 
     /// <summary>The JSON and display name of a cause: "dusk", "headlight", "self-illumination", …</summary>
-    public static string Cause(LoadCause cause) => cause switch
-    {
-        LoadCause.Dusk => "dusk",
-        LoadCause.Headlight => "headlight",
-        LoadCause.Lightning => "lightning",
-        LoadCause.SteadyLight => "steady-light",
-        LoadCause.SelfIllumination => "self-illumination",
-        LoadCause.Noise => "noise",
-        LoadCause.Supply => "supply",
-        LoadCause.PowerUp => "power-up",
-        _ => "unexplained",
-    };
+    public static string Cause(LoadCause cause) => Wording.Cause(cause);
 
     /// <summary>"info", "warning" or "error".</summary>
     public static string Severity(Severity severity) => severity switch

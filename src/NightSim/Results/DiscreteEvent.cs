@@ -7,4 +7,6 @@ namespace NightSim.Results;
 /// <param name="Signal">What changed ("output", "contact", "coil").</param>
 /// <param name="From">Old state in plain words.</param>
 /// <param name="To">New state in plain words.</param>
-public sealed record DiscreteEvent(double Time, string Device, string PartId, string Signal, string From, string To);
+/// <param name="Kind">What the change means to the analysis (trigger fired, relay operated, …).</param>
+public sealed record DiscreteEvent(double Time, string Device, string PartId, string Signal, string From, string To,
+    DeviceEventKind Kind = DeviceEventKind.Other);

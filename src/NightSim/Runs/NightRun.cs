@@ -6,6 +6,8 @@ using NightSim.Results;
 using NightSim.Sky;
 using NightSim.Sky.Events;
 using NightSim.Transient;
+using NightSim.Units;
+using NightSim.Mna;
 
 namespace NightSim.Runs;
 
@@ -31,12 +33,7 @@ public static class NightRun
         LightProfile? profile = request.Scenario?.CreateProfile();
         double stop = profile?.Duration ?? request.Duration ?? DefaultDuration;
 
-        var devices = new List<Device>();
-        foreach (PartDefinition part in net.Parts)
-        {
-            PartKind kind = PartCatalog.Find(part.Kind) ?? throw new RunInputException([$"{net.SourceFile}: part '{part.Id}': unknown kind '{part.Kind}'"]);
-            devices.AddRange(kind.Create(part));
-        }
+        List<Device> devices = CreateDevices(net);
         List<string> nodes = NetlistNodes(net);
         var problems = new List<string>();
         ILightSignal? light = profile;
@@ -103,18 +100,29 @@ public static class NightRun
             foreach (string pin in pins)
             {
                 string node = p.Pins[pin];
-                if (!NetlistLoader.IsGround(node) && seen.Add(node)) list.Add(node);
+                if (!Ground.Is(node) && seen.Add(node)) list.Add(node);
             }
         }
         return list;
     }
 
-    /// <summary>True when the design touches mains: a relay switching a named load (the lamp), or a source of 50 V or
-    /// more (a dropper supply's mains feed).</summary>
+    /// <summary>True when the design touches mains: some part's kind says it faces mains (a relay switching a named
+    /// load, a mains-level source).</summary>
     public static bool TouchesMains(NetlistDefinition net) =>
-        net.Parts.Any(p => p.Kind == "relay" && p.Parameters.Has("load"))
-        || net.Parts.Any(p => p.Kind == "voltage-source" &&
-            (Math.Abs(p.Parameters.Number("constant", 0)) >= 50 || Math.Abs(p.Parameters.Object("sine")?.Number("amplitude", 0) ?? 0) >= 50));
+        net.Parts.Any(p => PartCatalog.Find(p.Kind)?.FacesMains(p) == true);
+
+    /// <summary>The engine devices of a validated netlist, in netlist order.</summary>
+    /// <exception cref="RunInputException">A part kind is not registered.</exception>
+    public static List<Device> CreateDevices(NetlistDefinition net)
+    {
+        var devices = new List<Device>();
+        foreach (PartDefinition part in net.Parts)
+        {
+            PartKind kind = PartCatalog.Find(part.Kind) ?? throw new RunInputException([$"{net.SourceFile}: part '{part.Id}': unknown kind '{part.Kind}'"]);
+            devices.AddRange(kind.Create(part));
+        }
+        return devices;
+    }
 
     private static void AddNoise(LightProfile profile, List<Device> devices)
     {

@@ -151,7 +151,7 @@ public static class NightTraces
                 From = from,
                 To = to,
                 Series = series,
-                Markers = [.. w.Labels.Select(l => new PlotMarker(l.Time, l.Label, Emphasis: iv is { Expected: false } && iv.Cause != Reporting.LoadCause.PowerUp))],
+                Markers = [.. w.Labels.Select(l => new PlotMarker(l.Time, l.Label, Emphasis: iv is { Expected: false } && iv.Cause != LoadCause.PowerUp))],
                 FileStem = $"{prefix}-{k:00}-{Slug(what)}",
             });
         }

@@ -1,7 +1,7 @@
 using NightSim.Analysis;
 using NightSim.Devices;
+using NightSim.Devices.Roles;
 using NightSim.Netlist;
-using NightSim.Reporting;
 using NightSim.Results;
 using NightSim.Sky;
 using NightSim.Sky.Events;
@@ -16,10 +16,9 @@ public static class RunFactsBuilder
 
     public static RunFacts Build(NightRunRequest request, LightProfile? profile, IReadOnlyList<Device> devices, SimulationResult sim, double stop)
     {
-        NetlistDefinition net = request.Netlist;
-        // The channel the circuit's light sensor reads (the first sensor part's), not always "sensor".
-        string channelName = net.Parts.FirstOrDefault(p => p.Kind is "photoresistor" or "phototransistor" or "photodiode")
-            ?.Parameters.Text("channel", LightScenario.DefaultChannel) ?? LightScenario.DefaultChannel;
+        // The light sensor the circuit switches on: the first one (its channel, not always "sensor").
+        LightSensorRole? sensor = devices.Select(d => d.Role).OfType<LightSensorRole>().FirstOrDefault();
+        string channelName = sensor?.Channel ?? LightScenario.DefaultChannel;
         int channel = profile is null ? -1 : Math.Max(0, profile.ChannelIndex(channelName));
         Func<double, double>? lux = profile is null ? null : t => profile.Lux(channel, t);
 
@@ -34,7 +33,7 @@ public static class RunFactsBuilder
             }
         }
 
-        double decay = net.Parts.Where(p => p.Kind == "photoresistor").Select(p => p.Parameters.Number("decayTime", 0)).DefaultIfEmpty(0).Max();
+        double lag = devices.Select(d => d.Role).OfType<LightSensorRole>().Select(r => r.LagSeconds).DefaultIfEmpty(0).Max();
         return new RunFacts
         {
             Origin = profile?.Origin ?? PlainOrigin,
@@ -45,11 +44,14 @@ public static class RunFactsBuilder
             HasSwitchedLoad = devices.OfType<ISwitchedLoad>().Any(),
             Events = profile is null ? [] : Events(profile),
             DeviceEvents = sim.Events,
-            Timers = TimerFactsExtractor.Extract(net, node => TimerFactsExtractor.DcSupply(net, node) ?? MeasuredSupply(sim, node)),
+            Timers = TimingNetwork.Extract(devices, node => TimingNetwork.FixedVoltage(devices, node) ?? MeasuredSupply(sim, node)),
+            Relays = devices.Select(d => d.Role).OfType<RelayCoilRole>()
+                .Select(r => new RelayFacts(r.PartId, r.PullIn, r.DropOut, (from, to) => PeakDifference(sim, r.CoilA, r.CoilB, from, to))).ToList(),
+            Sensor = sensor is null ? null : new SensorFacts(sensor.PartId, profile is null ? null : SwitchingLevel.Find(request.Netlist, request.Options)),
             SkyLux = lux,
             SensorLux = lux,
             LampCouplingLux = profile?.LampCouplings.Sum(c => c.Lux) ?? 0,
-            AttributionLag = Math.Max(30.0, 5 * decay),
+            AttributionLag = Math.Max(30.0, 5 * lag),
         };
     }
 
@@ -61,9 +63,9 @@ public static class RunFactsBuilder
         var list = new List<LoadTransition>();
         foreach (DiscreteEvent e in sim.Events)
         {
-            if (!e.Signal.StartsWith("load ", StringComparison.Ordinal)) continue;
-            double power = byName.TryGetValue(e.Device, out Device? d) && d is ISwitchedLoad l ? l.LoadPower : 0;
-            list.Add(new LoadTransition(e.Time, e.To == "on", e.Signal[5..], power, e.PartId));
+            if (e.Kind is not (DeviceEventKind.LoadOn or DeviceEventKind.LoadOff)) continue;
+            ISwitchedLoad? load = byName.GetValueOrDefault(e.Device) as ISwitchedLoad;
+            list.Add(new LoadTransition(e.Time, e.Kind == DeviceEventKind.LoadOn, load?.LoadName ?? e.Device, load?.LoadPower ?? 0, e.PartId));
         }
         // One load is analysed: the first named one (a design with several lamps would need one timeline each).
         if (list.Count > 0)
@@ -74,9 +76,29 @@ public static class RunFactsBuilder
         if (devices.OfType<ISwitchedLoad>().Any(l => l.LoadName is not null)) return list;
         foreach (DiscreteEvent e in sim.Events)
         {
-            if (e.Signal == "coil") list.Add(new LoadTransition(e.Time, e.To == "pulled in", e.Device, 0, e.PartId));
+            if (e.Kind is DeviceEventKind.CoilPulledIn or DeviceEventKind.CoilReleased)
+                list.Add(new LoadTransition(e.Time, e.Kind == DeviceEventKind.CoilPulledIn, e.PartId, 0, e.PartId));
         }
         return list;
+    }
+
+    /// <summary>Highest V(a) − V(b) recorded within [from, to], V; NaN when a node is not recorded or nothing falls in
+    /// the window (ground reads 0 V).</summary>
+    public static double PeakDifference(SimulationResult sim, string a, string b, double from, double to)
+    {
+        Trace? ta = Ground.Is(a) ? null : sim.Trace(a), tb = Ground.Is(b) ? null : sim.Trace(b);
+        if ((ta is null && !Ground.Is(a)) || (tb is null && !Ground.Is(b))) return double.NaN;
+        Trace reference = ta ?? tb!;
+        double peak = double.NaN;
+        int count = Math.Min(ta?.Values.Count ?? int.MaxValue, tb?.Values.Count ?? int.MaxValue);
+        for (int i = 0; i < count; i++)
+        {
+            double t = reference.Times[i];
+            if (t < from || t > to) continue;
+            double v = (ta?.Values[i] ?? 0.0) - (tb?.Values[i] ?? 0.0);
+            if (double.IsNaN(peak) || v > peak) peak = v;
+        }
+        return peak;
     }
 
     /// <summary>The scenario's events as causes. A dusk trigger fires on a darkening edge: for a steady light that is

@@ -1,4 +1,5 @@
 using NightSim.Netlist;
+using NightSim.Inputs;
 
 namespace NightSim.Runs;
 

@@ -1,3 +1,4 @@
+using NightSim.Inputs;
 namespace NightSim.Sky;
 
 /// <summary>One problem found in a scenario or light-log file.</summary>
@@ -9,17 +10,17 @@ namespace NightSim.Sky;
 /// <param name="Column">1-based column, or 0 when unknown.</param>
 public sealed record ScenarioError(string File, string Path, string Message, string? Hint = null, int Line = 0, int Column = 0)
 {
-    /// <summary>"file:line:column: path: message (hint: …)".</summary>
+    /// <summary>"file:line:column: error at path: message. hint: …" (the file as given, as netlist errors are).</summary>
     public override string ToString()
     {
         string where = Line > 0 ? $"{File}:{Line}:{Column}" : File;
-        string hint = string.IsNullOrEmpty(Hint) ? "" : $" (hint: {Hint})";
-        return $"{where}: {Path}: {Message}{hint}";
+        string hint = string.IsNullOrEmpty(Hint) ? "" : $". hint: {Hint}";
+        return $"{where}: error at {Path}: {Message}{hint}";
     }
 }
 
 /// <summary>Thrown when a scenario cannot be used; carries every problem found, not only the first.</summary>
-public sealed class ScenarioException : Netlist.InputFileException
+public sealed class ScenarioException : Inputs.InputFileException
 {
     public ScenarioException(IReadOnlyList<ScenarioError> errors)
         : base(string.Join(Environment.NewLine, errors.Select(e => e.ToString()))) => Errors = errors;

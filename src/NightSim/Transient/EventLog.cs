@@ -15,8 +15,8 @@ internal sealed class EventLog : EventSink
 
     public List<DiscreteEvent> Events { get; } = [];
 
-    public override void Record(Device device, string signal, string from, string to) =>
-        Events.Add(new DiscreteEvent(Time, device.Name, device.PartId, signal, from, to));
+    public override void Record(Device device, string signal, string from, string to, DeviceEventKind kind) =>
+        Events.Add(new DiscreteEvent(Time, device.Name, device.PartId, signal, from, to, kind));
 
     public override void RequestBreakpoint(double time)
     {

@@ -1,4 +1,5 @@
 using NightSim.Netlist;
+using NightSim.Mna;
 
 namespace NightSim.Transient;
 

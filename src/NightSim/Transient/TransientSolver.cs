@@ -373,36 +373,45 @@ public sealed partial class TransientSolver
 
             _opGmin = 0; // a temporary shunt lasts one accepted step
             Commit(t, h, landing ? bp : double.NaN, restart);
+            StepEnd end = StepEnd.Smooth;
             if (fired)
             {
                 if (!FireEvents()) return false;
-                _needRestart = true;
-                _havePrev = false;
-                _h = _options.FixedStep ?? _options.RestartStep;
+                end = StepEnd.EventsFired;
             }
             else if (landing)
             {
                 _stats.Breakpoints++;
+                // An ideal edge leaves x_n inconsistent with the sources just after it.
+                end = SourcesJumpAt(_time.Value) ? StepEnd.SourceJump : StepEnd.Landed;
+            }
+            ContinueAfter(end, hNext, restart);
+            return _time.Value < _stop;
+        }
+    }
+
+    /// <summary>Set up the next step from how this one ended: a restart (backward Euler, history dropped) after events
+    /// and ideal edges, a step sized to the next breakpoint after a smooth landing, else the controller's proposal.</summary>
+    private void ContinueAfter(StepEnd end, double hNext, bool restart)
+    {
+        switch (end)
+        {
+            case StepEnd.EventsFired:
+            case StepEnd.SourceJump:
+                _needRestart = true;
+                _havePrev = false;
+                _h = _options.FixedStep ?? _options.RestartStep;
+                break;
+            case StepEnd.Landed:
                 double tNow = _time.Value;
-                if (SourcesJumpAt(tNow))
-                {
-                    // An ideal edge: x_n is inconsistent with the sources just after it. Restart with backward Euler.
-                    _needRestart = true;
-                    _havePrev = false;
-                    _h = _options.FixedStep ?? _options.RestartStep;
-                    return _time.Value < _stop;
-                }
-                double next = NextBreakpoint(tNow);
-                double hSharp = (next - tNow) / 10.0;
+                double hSharp = (NextBreakpoint(tNow) - tNow) / 10.0;
                 _h = _options.FixedStep ?? Math.Min(hNext, Math.Max(hSharp, _options.RestartStep));
                 if (restart) _needRestart = false;
-            }
-            else
-            {
+                break;
+            default:
                 _h = hNext;
                 if (restart) _needRestart = false;
-            }
-            return _time.Value < _stop;
+                break;
         }
     }
 

@@ -34,7 +34,11 @@ public class NightAnalysisTests
     {
         double on = 4.8 * 3600, off = on + 4 * 3600;
         AnalysisResult r = NightAnalysis.Analyze(Facts([On(on), Off(off)],
-            deviceEvents: [new DiscreteEvent(off - 0.001, "U1.threshold-comparator", "U1", "output", "low", "high")]));
+            deviceEvents:
+            [
+                new DiscreteEvent(off - 0.001, "U1.a", "U1", "output", "low", "high", DeviceEventKind.ThresholdReached),
+                new DiscreteEvent(off - 0.0009, "U1.b", "U1", "q", "high", "low", DeviceEventKind.TimerOutputLow),
+            ]));
         NightSummary n = Assert.Single(r.Nights);
         LoadInterval iv = Assert.Single(n.LoadOn);
         Assert.Equal(LoadCause.Dusk, iv.Cause);
@@ -109,5 +113,70 @@ public class NightAnalysisTests
         AnalysisResult r = NightAnalysis.Analyze(Facts([]));
         Assert.True(r.Nights[0].Missed);
         Assert.Contains(r.Findings, f => f.Code == "missed-night");
+    }
+
+    // The trigger held low past the timing period: the output followed the trigger, and the on-period ended when it
+    // was released, not when the timer ran out (555 logic: a trigger below 1/3 holds the output high whatever the
+    // threshold does; common practice).
+    [Fact]
+    public void TriggerHeldPastThePeriodIsNamed()
+    {
+        double on = 4.8 * 3600, released = on + 3 * 3600;
+        var events = new List<DiscreteEvent>
+        {
+            new(on - 0.01, "x", "U1", "output", "low", "high", DeviceEventKind.TriggerFired),
+            new(on - 0.005, "y", "U1", "q", "low", "high", DeviceEventKind.TimerOutputHigh),
+            new(on + 110, "z", "U1", "output", "low", "high", DeviceEventKind.ThresholdReached),
+            new(released, "x", "U1", "output", "high", "low", DeviceEventKind.TriggerReleased),
+            new(released + 1e-6, "y", "U1", "q", "high", "low", DeviceEventKind.TimerOutputLow),
+        };
+        AnalysisResult r = NightAnalysis.Analyze(Facts([On(on), Off(released + 0.01)], deviceEvents: events,
+            timers: [new TimerFacts("U1", 1e6, 100e-6, 12, 0, double.PositiveInfinity)]));
+        Assert.Equal("timer U1's trigger input was released", r.Nights[0].LoadOn[0].EndedBy);
+        Finding f = Assert.Single(r.Findings, f => f.Code == "trigger-held");
+        // Held 3 h against ln 3 · 1 MΩ · 100 µF = 1 min 50 s.
+        Assert.Contains("for 3 h from", f.Message, StringComparison.Ordinal);
+        Assert.Contains("timing period of 1 min 50 s", f.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain("U1.", f.Message, StringComparison.Ordinal);
+        Assert.Equal("U1", f.Part);
+    }
+
+    // The timer output went high, the coil stayed at 8.7 V against its 9 V pull-in: the relay stage failed.
+    [Fact]
+    public void CoilBelowPullInIsTheRelayStage()
+    {
+        double on = 4.8 * 3600, off = on + 3600;
+        var events = new List<DiscreteEvent>
+        {
+            new(on, "x", "U1", "output", "low", "high", DeviceEventKind.TriggerFired),
+            new(on + 1e-6, "y", "U1", "q", "low", "high", DeviceEventKind.TimerOutputHigh),
+            new(on + 0.01, "x", "U1", "output", "high", "low", DeviceEventKind.TriggerReleased),
+            new(off, "z", "U1", "output", "low", "high", DeviceEventKind.ThresholdReached),
+            new(off + 1e-6, "y", "U1", "q", "high", "low", DeviceEventKind.TimerOutputLow),
+        };
+        RunFacts facts = Facts([], deviceEvents: events) with
+        {
+            Relays = [new RelayFacts("K1", 9.0, 1.2, (from, to) => from <= on + 1 && to >= on ? 8.7 : 0.0)],
+        };
+        AnalysisResult r = NightAnalysis.Analyze(facts);
+        Finding f = Assert.Single(r.Findings, f => f.Code == "relay-not-pulling-in");
+        Assert.Contains("8.7 V against its 9.0 V pull-in", f.Message, StringComparison.Ordinal);
+        Assert.Equal("K1", f.Part);
+        Assert.DoesNotContain(r.Findings, f => f.Code == "missed-night");
+    }
+
+    // A night never darker than the switching level is not a failure of any stage: it says how dark it got.
+    [Fact]
+    public void BrightNightNamesTheDarkestLight()
+    {
+        RunFacts facts = Facts([]) with
+        {
+            Sensor = new SensorFacts("LDR1", 2.0),
+            SensorLux = t => 4.0 + Math.Abs(t - 13 * 3600) / 3600.0,
+        };
+        AnalysisResult r = NightAnalysis.Analyze(facts);
+        Finding f = Assert.Single(r.Findings, f => f.Code == "never-dark-enough");
+        Assert.Contains("never fell below 4 lx (darkest at 01:00:00) against the circuit's switching level of 2 lx", f.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain(r.Findings, f => f.Code == "missed-night");
     }
 }

@@ -56,11 +56,11 @@ public sealed class SimulateCommandTests
     }
 
     [Fact]
-    public void Bad_Duration_Exits_2_And_Writes_Nothing()
+    public void Bad_Duration_Exits_1_And_Writes_Nothing()
     {
         string dir = TempDir();
         (int exit, _, string error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "rc-step.json"), "--for", "5m", "--out", dir);
-        Assert.Equal(2, exit);
+        Assert.Equal(1, exit);
         Assert.Contains("ambiguous", error, StringComparison.Ordinal);
         Assert.False(Directory.Exists(dir));
     }
@@ -77,10 +77,10 @@ public sealed class SimulateCommandTests
     }
 
     [Fact]
-    public void Unknown_Node_Exits_2_Naming_The_Known_Nodes()
+    public void Unknown_Node_Exits_1_Naming_The_Known_Nodes()
     {
         (int exit, _, string error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "rc-step.json"), "--for", "1s", "--nodes", "out,nowhere", "--out", TempDir());
-        Assert.Equal(2, exit);
+        Assert.Equal(1, exit);
         Assert.Contains("'nowhere'", error, StringComparison.Ordinal);
         Assert.Contains("in, out", error, StringComparison.Ordinal);
     }

@@ -3,6 +3,7 @@ using NightSim.Netlist;
 using NightSim.Results;
 using NightSim.Tests.Devices;
 using NightSim.Transient;
+using NightSim.Mna;
 
 namespace NightSim.Tests.Demos;
 

@@ -2,6 +2,7 @@ using NightSim.Devices;
 using NightSim.Netlist;
 using NightSim.Results;
 using NightSim.Transient;
+using NightSim.Mna;
 
 namespace NightSim.Tests.Devices;
 
@@ -15,7 +16,7 @@ internal static class BlockBench
 
         public List<double> Breakpoints { get; } = [];
 
-        public override void Record(Device device, string signal, string from, string to) => Changes.Add($"{device.Name} {signal} {from}->{to}");
+        public override void Record(Device device, string signal, string from, string to, NightSim.Results.DeviceEventKind kind) => Changes.Add($"{device.Name} {signal} {from}->{to}");
 
         public override void RequestBreakpoint(double time) => Breakpoints.Add(time);
     }

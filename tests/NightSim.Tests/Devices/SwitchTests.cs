@@ -8,7 +8,7 @@ public sealed class SwitchTests
     {
         public List<string> Changes { get; } = [];
 
-        public override void Record(Device device, string signal, string from, string to) => Changes.Add($"{device.Name} {signal} {from}->{to}");
+        public override void Record(Device device, string signal, string from, string to, NightSim.Results.DeviceEventKind kind) => Changes.Add($"{device.Name} {signal} {from}->{to}");
 
         public override void RequestBreakpoint(double time) { }
     }

@@ -2,6 +2,7 @@ using NightSim.Devices;
 using NightSim.Netlist;
 using NightSim.Results;
 using NightSim.Transient;
+using NightSim.Mna;
 
 namespace NightSim.Tests.Transient;
 

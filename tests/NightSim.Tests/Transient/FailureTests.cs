@@ -1,6 +1,7 @@
 using NightSim.Devices;
 using NightSim.Netlist;
 using NightSim.Transient;
+using NightSim.Mna;
 
 namespace NightSim.Tests.Transient;
 

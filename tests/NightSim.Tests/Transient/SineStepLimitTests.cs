@@ -1,6 +1,7 @@
 using NightSim.Netlist;
 using NightSim.Results;
 using NightSim.Transient;
+using NightSim.Mna;
 
 namespace NightSim.Tests.Transient;
 

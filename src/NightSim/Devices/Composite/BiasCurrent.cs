@@ -5,7 +5,7 @@ namespace NightSim.Devices.Composite;
 /// more than ≈ 0.15 V inside its supply, and it vanishes instead of pushing a high-impedance node beyond the rail (an
 /// ideal constant current drove a reset pin held by 1 µF to 112 V). Scaled by the source scale like an independent
 /// source.</summary>
-public sealed class BiasCurrent : Device
+public sealed class BiasCurrent : Device, Roles.IDcElement
 {
     private readonly double _current;
     /// <summary>Voltage scale of the smooth limit, volts.</summary>
@@ -27,6 +27,8 @@ public sealed class BiasCurrent : Device
 
     /// <summary>Current, A.</summary>
     public double Current => _current;
+
+    public void StampDc(Roles.DcNetwork network) => network.Current(Nodes[0], Nodes[1], _current, drain: true);
 
     public override void Setup(SetupContext setup)
     {

@@ -7,7 +7,7 @@ namespace NightSim.Devices.Composite;
 /// low, off while q is high, blended geometrically in conductance over the latch's output transition (no event of its
 /// own, so it switches exactly with the latch). Same matrix slots in both states.
 /// </summary>
-public sealed class DischargeSwitch : Device
+public sealed class DischargeSwitch : Device, Roles.IDcElement
 {
     private readonly ILogicLevel _latch;
     private readonly double _gOn;
@@ -31,6 +31,9 @@ public sealed class DischargeSwitch : Device
     }
 
     /// <summary>Conductance at run time <paramref name="time"/>, S.</summary>
+    /// <summary>While the one-shot times, the switch is off: its off-resistance is a drain at the discharge pin.</summary>
+    public void StampDc(Roles.DcNetwork network) => network.Conductance(Nodes[0], Nodes[1], _gOff, drain: true);
+
     public double Conductance(double time) => _gOff * Math.Pow(_gOn / _gOff, 1.0 - _latch.Level(time));
 
     public override void Setup(SetupContext setup)

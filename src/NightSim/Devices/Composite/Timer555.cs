@@ -1,3 +1,5 @@
+using NightSim.Devices.Roles;
+using NightSim.Results;
 using NightSim.Netlist;
 
 namespace NightSim.Devices.Composite;
@@ -117,16 +119,21 @@ public static class Timer555
         // Internal comparators drive only the latch inputs: 1 kΩ outputs, no load.
         var logic = new ComparatorSettings(Hysteresis: hysteresis, OutputResistance: 1e3, Transition: transition);
         devices.Add(new Comparator(Internal("threshold-comparator"), id, threshold, control, Internal("r"), vcc, gnd,
-            logic with { Offset = p.NumberOrDefault(s_thresholdOffset) }));
+            logic with { Offset = p.NumberOrDefault(s_thresholdOffset), RisingMeans = DeviceEventKind.ThresholdReached, FallingMeans = DeviceEventKind.ThresholdLeft }));
         devices.Add(new Comparator(Internal("trigger-comparator"), id, lower, trigger, Internal("s"), vcc, gnd,
-            logic with { Offset = p.NumberOrDefault(s_triggerOffset) }));
+            logic with { Offset = p.NumberOrDefault(s_triggerOffset), RisingMeans = DeviceEventKind.TriggerFired, FallingMeans = DeviceEventKind.TriggerReleased }));
         // Reset comparator: high (clearing) while V(reset) − V(gnd) < resetThreshold; it powers up clearing because
         // every node starts at 0 V.
         devices.Add(new Comparator(Internal("reset-comparator"), id, gnd, reset, Internal("clear"), vcc, gnd,
-            logic with { Offset = -p.Number(s_resetThreshold.Name, family.ResetThreshold), InitialHigh = true }));
+            logic with { Offset = -p.Number(s_resetThreshold.Name, family.ResetThreshold), InitialHigh = true, RisingMeans = DeviceEventKind.ResetHeld, FallingMeans = DeviceEventKind.ResetReleased }));
 
         var latch = new SrLatch(Internal("latch"), id, Internal("s"), Internal("r"), Internal("clear"), Internal("q"), null, vcc, gnd,
-            new SrLatchSettings(ResetDominant: false, OutputResistance: 1e3, Transition: transition, ClearActiveAtPowerUp: true));
+            new SrLatchSettings(ResetDominant: false, OutputResistance: 1e3, Transition: transition, ClearActiveAtPowerUp: true,
+                RisingMeans: DeviceEventKind.TimerOutputHigh, FallingMeans: DeviceEventKind.TimerOutputLow))
+        {
+            Role = new OneShotTimerRole(id, vcc, gnd, trigger, threshold, discharge, output,
+                p.TextOrDefault(s_variant) == "bipolar" ? TimerFamily.Bipolar : TimerFamily.Cmos),
+        };
         devices.Add(latch);
 
         devices.Add(new DischargeSwitch(Internal("discharge"), id, discharge, gnd, latch,

@@ -44,8 +44,17 @@ public sealed class LightInput
 
     public double Gain { get; }
 
-    /// <summary>Resolve the channel index.</summary>
-    public void Setup(SetupContext setup) => _channel = setup.LightChannel(ChannelName);
+    /// <summary>Resolve the channel index. A run with a light signal that lacks the channel is refused, for every sensor
+    /// kind alike (a sensor reading nothing would sit in the dark all day).</summary>
+    /// <exception cref="LightChannelException">The run's light has no such channel.</exception>
+    public void Setup(SetupContext setup, Device owner)
+    {
+        _channel = setup.LightChannel(ChannelName);
+        if (_channel < 0 && setup.HasLightSignal) throw new LightChannelException(owner.PartId, ChannelName);
+    }
+
+    /// <summary>The role a sensor with this input states (channel, nodes, lag).</summary>
+    public Roles.LightSensorRole Role(string partId, IReadOnlyList<string> nodes, double lagSeconds) => new(partId, ChannelName, nodes, lagSeconds);
 
     /// <summary>Illuminance on the sensor at ctx.Time, lux (never negative).</summary>
     public double Lux(LoadContext ctx)

@@ -54,6 +54,7 @@ public sealed class Photodiode : Device
         _is = saturationCurrent;
         _n = emission;
         _light = light;
+        Role = light.Role(partId, Nodes, 0.0);
     }
 
     /// <summary>Photocurrent plus dark current at the time in <paramref name="ctx"/>, A (cathode → anode inside).</summary>
@@ -67,7 +68,7 @@ public sealed class Photodiode : Device
         _anode = setup.Node(Nodes[0]);
         _cathode = setup.Node(Nodes[1]);
         _slots = setup.Pair(_anode, _cathode);
-        _light.Setup(setup);
+        _light.Setup(setup, this);
     }
 
     public override void Load(LoadContext ctx)

@@ -65,6 +65,7 @@ public sealed class Photoresistor : Device
         _riseTime = riseTime;
         _decayTime = decayTime;
         _light = light;
+        Role = light.Role(partId, Nodes, _decayTime);
     }
 
     public LightInput Light => _light;
@@ -91,7 +92,7 @@ public sealed class Photoresistor : Device
         _a = setup.Node(Nodes[0]);
         _b = setup.Node(Nodes[1]);
         _slots = setup.Pair(_a, _b);
-        _light.Setup(setup);
+        _light.Setup(setup, this);
     }
 
     public override void PowerUp() => _hasHistory = false;

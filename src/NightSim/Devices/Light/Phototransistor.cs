@@ -51,6 +51,7 @@ public sealed class Phototransistor : Device
         _knee = kneeVoltage;
         _capacitance = capacitance;
         _light = light;
+        Role = light.Role(partId, Nodes, 0.0);
     }
 
     /// <summary>Available collector current I_L = β·I_B,ph + I_dark at the time in <paramref name="ctx"/>, A.</summary>
@@ -61,7 +62,7 @@ public sealed class Phototransistor : Device
         _c = setup.Node(Nodes[0]);
         _e = setup.Node(Nodes[1]);
         _slots = setup.Pair(_c, _e);
-        _light.Setup(setup);
+        _light.Setup(setup, this);
     }
 
     public override void Load(LoadContext ctx)

@@ -1,6 +1,6 @@
 using System.Globalization;
 
-namespace NightSim.Reporting;
+namespace NightSim.Units;
 
 /// <summary>
 /// Runs a block under the invariant culture and restores the caller's culture afterwards, so that every number and

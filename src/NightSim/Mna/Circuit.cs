@@ -1,8 +1,8 @@
 using NightSim.Devices;
-using NightSim.Mna;
+using NightSim.Netlist;
 using NightSim.Sky;
 
-namespace NightSim.Netlist;
+namespace NightSim.Mna;
 
 /// <summary>
 /// A circuit ready for one run: its devices after <see cref="Device.Setup"/>, the unknown map (node voltages, internal

@@ -1,4 +1,4 @@
-namespace NightSim.Netlist;
+namespace NightSim.Inputs;
 
 /// <summary>
 /// Base of every "the input file is wrong" failure (netlist, scenario, …). The CLI turns it into exit code 2 and prints

@@ -1,4 +1,4 @@
-namespace NightSim.Reporting;
+namespace NightSim.Analysis;
 
 /// <summary>What made the load switch on (attributed from the circuit's trigger timing and the concrete event list).</summary>
 public enum LoadCause
