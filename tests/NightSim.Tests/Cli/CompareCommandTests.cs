@@ -1,4 +1,5 @@
 using System.CommandLine;
+using NightSim.Analysis;
 using NightSim.Cli;
 using NightSim.Reporting;
 using NightSim.Tests.Reporting;
