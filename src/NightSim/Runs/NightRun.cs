@@ -50,7 +50,8 @@ public static class NightRun
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
         var zoomIndices = nodes.Select(circuit.IndexOf).ToList();
-        var zoom = new ZoomCapture(zoomIndices);
+        // Long enough for a dusk or a timer's end (minutes); faster events use a few seconds of it.
+        var zoom = new ZoomCapture(zoomIndices) { Before = NightTraces.SlowZoomBefore, After = NightTraces.SlowZoomAfter, MergeWithin = NightTraces.FastZoomAfter };
         // A narrow window around each switch-on: the trigger dip and the relay's pull-in take milliseconds.
         var detail = new ZoomCapture(zoomIndices, maxWindows: 6) { Before = 0.02, After = 0.06 };
         bool[] lastOn = new bool[loads.Count];
