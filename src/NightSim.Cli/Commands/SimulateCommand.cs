@@ -8,12 +8,14 @@ using NightSim.Results;
 using NightSim.Transient;
 using NightSim.Units;
 using NightSim.Cli.Rendering;
+using NightSim.Devices;
+using NightSim.Devices.Light;
 using NightSim.Mna;
 
 namespace NightSim.Cli.Commands;
 
-/// <summary>`nightsim simulate NETLIST --for DURATION [--lux VALUE] [--out DIR] [--nodes a,b]`: a plain transient run
-/// from power-up; writes DIR/trace.csv and DIR/statistics.json.</summary>
+/// <summary>`nightsim simulate NETLIST --for DURATION [--lux VALUE] [--start ramp|operating-point] [--out DIR] [--nodes a,b]`:
+/// a plain transient run from power-up (or the operating point); writes DIR/trace.csv and DIR/statistics.json.</summary>
 internal static class SimulateCommand
 {
     public static Command Create()
@@ -37,13 +39,24 @@ internal static class SimulateCommand
         var failOn = new Option<string?>("--fail-on") { Description = "Exit with code 4 when a finding is at or above this severity.", HelpName = "warning|error" };
         failOn.AcceptOnlyFromAmong("warning", "error");
         var noPlots = new Option<bool>("--no-plots") { Description = "Skip the SVG/PNG plots (faster; report.html then has no figures)." };
-        var lux = new Option<string?>("--lux") { Description = "Constant illuminance on every light sensor, lux (default 0).", HelpName = "VALUE" };
+        var lux = new Option<string?>("--lux")
+        {
+            Description = "Constant illuminance, lux (default 0), for --for runs: applies to every light sensor without its own lux or lux points; a sensor with its own keeps them (a warning names it).",
+            HelpName = "VALUE",
+        };
         var outDir = new Option<DirectoryInfo>("--out")
         {
             Description = "Output folder for trace.csv and statistics.json (created if missing).",
             DefaultValueFactory = _ => new DirectoryInfo("nightsim-out"),
             HelpName = "DIR",
         };
+        var start = new Option<string>("--start")
+        {
+            Description = "How a --for run starts: ramp (power-up: capacitors at 0 V, every source scaled from 0 to full over the first 1 ms) or operating-point (from the DC operating point at t = 0, no ramp).",
+            DefaultValueFactory = _ => "ramp",
+            HelpName = "ramp|operating-point",
+        };
+        start.AcceptOnlyFromAmong("ramp", "operating-point");
         var nodes = new Option<string?>("--nodes") { Description = "Comma-separated nodes to record (default: every node).", HelpName = "a,b" };
         var command = new Command("simulate",
             "Run a netlist through the nights of a scenario and report when the load switched on, for how long and why " +
@@ -54,6 +67,7 @@ internal static class SimulateCommand
         command.Options.Add(lux);
         command.Options.Add(outDir);
         command.Options.Add(nodes);
+        command.Options.Add(start);
         command.Options.Add(scenario);
         command.Options.Add(nights);
         command.Options.Add(format);
@@ -73,6 +87,8 @@ internal static class SimulateCommand
                 ?? (durationText is null ? SimulateNight.CompanionScenario(net.ToString()) : null);
             if (scenarioPath is not null)
             {
+                if (pr.GetValue(lux) is not null)
+                    error.WriteLine($"warning: --lux does not apply to a night run: the scenario {scenarioPath} lights the sensors. hint: use --for DURATION for a plain transient under constant light");
                 var settings = new SimulateNight.Settings(net.ToString(), scenarioPath, pr.GetValue(nights), pr.GetValue(outDir)!,
                     pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots));
                 return SimulateNight.Execute(settings, Terminal.For(output), output, error);
@@ -82,7 +98,8 @@ internal static class SimulateCommand
                 error.WriteLine($"{net}: no scenario given and no {Path.GetFileNameWithoutExtension(net.Name)}.scenario.json beside it. hint: add --scenario FILE for a night run, or --for DURATION (e.g. --for 10s) for a plain transient");
                 return CliErrors.Usage;
             }
-            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), output, error);
+            StartMode startMode = pr.GetValue(start) == "operating-point" ? StartMode.OperatingPoint : StartMode.PowerUp;
+            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), startMode, output, error);
         }));
         return command;
     }
@@ -90,7 +107,8 @@ internal static class SimulateCommand
     /// <summary>Traces the terminal summary of a plain transient lists.</summary>
     private const int SummaryTraces = 8;
 
-    private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList, TextWriter output, TextWriter error)
+    private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList,
+        StartMode startMode, TextWriter output, TextWriter error)
     {
         if (CliNumbers.DecimalComma(durationText))
         {
@@ -137,6 +155,14 @@ internal static class SimulateCommand
         }
 
         Circuit circuit = Circuit.Build(def);
+        if (luxText is not null)
+        {
+            var sensors = circuit.Devices.OfType<ILightSensor>().Select(d => (Id: ((Device)d).PartId, d.Light.HasOwnLight)).Distinct().ToList();
+            foreach (var (id, _) in sensors.Where(s => s.HasOwnLight))
+                error.WriteLine($"warning: --lux does not apply to {id}: it has its own lux or lux points in {path}, which it keeps. hint: remove them from the part to drive it with --lux");
+            if (sensors.Count == 0)
+                error.WriteLine($"warning: --lux has no effect: {path} has no light sensor");
+        }
         IReadOnlyList<string>? record = null;
         if (!string.IsNullOrWhiteSpace(nodeList))
         {
@@ -151,7 +177,12 @@ internal static class SimulateCommand
             }
         }
 
-        var options = TransientOptions.Default with { RecordNodes = record, ConstantLux = lux };
+        var options = TransientOptions.Default with { RecordNodes = record, ConstantLux = lux, Start = startMode };
+        foreach ((string id, double corner) in PowerUpRamp.SourceCornersInside(circuit, options))
+        {
+            error.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"warning: {id} changes at {EngineeringValue.Format(corner, "s")}, inside the {EngineeringValue.Format(options.SupplyRamp, "s")} power-up ramp that scales every source from 0: its waveform there is shaped by the ramp (a step at 0 s becomes a {EngineeringValue.Format(options.SupplyRamp, "s")} ramp). hint: --start operating-point, or move the change after {EngineeringValue.Format(options.SupplyRamp, "s")}"));
+        }
         SimulationResult result = TransientSolver.Run(circuit, stop, options);
         SolverStatistics s = result.Statistics;
         if (result.Failure is { } failure)
@@ -171,7 +202,8 @@ internal static class SimulateCommand
         OutputException.Guard(statsPath, () => AtomicFile.Write(statsPath, stream => StatisticsJson.Write(result, stream)));
 
         var inv = CultureInfo.InvariantCulture;
-        output.WriteLine($"{def.Name}: simulated {EngineeringValue.Format(stop, "s")} from power-up");
+        output.WriteLine($"{def.Name}: simulated {EngineeringValue.Format(stop, "s")} from " +
+            (startMode == StartMode.OperatingPoint ? "the operating point" : $"power-up ({EngineeringValue.Format(options.SupplyRamp, "s")} source ramp)"));
         output.WriteLine(string.Create(inv, $"  steps: {s.AcceptedSteps} accepted, {s.RejectedSteps} rejected; Newton iterations {s.NewtonIterations}; factorisations {s.Factorizations}"));
         output.WriteLine(string.Create(inv, $"  step size: {EngineeringValue.Format(s.MinStep, "s")} … {EngineeringValue.Format(s.MaxStep, "s")}; events {s.Events}; CPU {s.CpuSeconds:F3} s"));
         foreach (Trace t in result.Traces.Take(SummaryTraces))

@@ -38,7 +38,8 @@ public static class TerminalReport
         console.WriteLine();
         console.Write(NightsTable(report.Nights));
         console.WriteLine();
-        WriteFindings(report.Findings, console);
+        WriteTargets(report, console);
+        WriteFindings(report.Findings, console, datedFindings: report.Nights.Count > 1);
         console.WriteLine();
         console.MarkupLine("[grey]" + Markup.Escape(StatisticsLine(report.Statistics)) + "[/]");
     }
@@ -117,7 +118,35 @@ public static class TerminalReport
 
     private static string Count(int n) => n > 0 ? "[red]" + n.ToString(s_inv) + "[/]" : "0";
 
-    private static void WriteFindings(IReadOnlyList<Finding> findings, IAnsiConsole console)
+    /// <summary>Per-night target checks (single night: every check; several: failures only) and the summary across nights.</summary>
+    private static void WriteTargets(NightReport report, IAnsiConsole console)
+    {
+        bool hasTargets = report.TargetResults.Any(t => t.Checks.Count > 0);
+        if (hasTargets)
+        {
+            console.MarkupLine("[bold]Targets[/]");
+            bool all = report.TargetResults.Count == 1;
+            foreach (Targets.NightTargets t in report.TargetResults)
+            {
+                string verdict = t.Pass ? "[green]pass[/]" : $"[red]FAIL[/] ({t.Failed} of {t.Checks.Count})";
+                console.MarkupLine($"  {t.Date:yyyy-MM-dd} {verdict}");
+                foreach (Targets.TargetCheck c in t.Checks.Where(c => all || !c.Pass))
+                {
+                    string mark = c.Pass ? "[green]pass[/]" : "[red]FAIL[/]";
+                    console.MarkupLine($"    {mark} [grey]{Markup.Escape(c.Target),-24}[/] margin {Markup.Escape(TargetsText.Margin(c)),-12} {Markup.Escape(c.Detail)}");
+                }
+            }
+            console.WriteLine();
+        }
+        if (report.Nights.Count > 1 || hasTargets)
+        {
+            console.MarkupLine(report.Nights.Count > 1 ? $"[bold]Summary across {report.Nights.Count} nights[/]" : "[bold]Summary[/]");
+            foreach (string line in TargetsText.OverviewLines(report.Overview, hasTargets)) console.MarkupLine("  " + Markup.Escape(line));
+            console.WriteLine();
+        }
+    }
+
+    private static void WriteFindings(IReadOnlyList<Finding> findings, IAnsiConsole console, bool datedFindings = false)
     {
         console.MarkupLine("[bold]Findings[/]");
         if (findings.Count == 0)
@@ -129,7 +158,7 @@ public static class TerminalReport
         {
             string colour = f.Severity switch { Severity.Error => "red", Severity.Warning => "yellow", _ => "blue" };
             string sev = ReportText.Severity(f.Severity);
-            string where = (f.At is DateTimeOffset at ? " at " + ReportText.Clock(at) : "") + (f.Part is null ? "" : " (" + f.Part + ")");
+            string where = (f.At is DateTimeOffset at ? " at " + (datedFindings ? at.ToString("yyyy-MM-dd HH:mm:ss", s_inv) : ReportText.Clock(at)) : "") + (f.Part is null ? "" : " (" + f.Part + ")");
             console.MarkupLine($"  [bold {colour}]{sev,-7}[/] [grey]{Markup.Escape(f.Code)}{Markup.Escape(where)}[/]: {Markup.Escape(f.Message)}");
             if (f.Fix is not null) console.MarkupLine("          [green]fix:[/] " + Markup.Escape(f.Fix));
         }

@@ -9,6 +9,7 @@ public static class AnalyzerCatalog
         new FalseTriggerAnalyzer(),
         new ChatterAnalyzer(),
         new TimerAnalyzer(),
+        new LeakageLimitAnalyzer(),
         new StageAnalyzer(),
     ];
 }

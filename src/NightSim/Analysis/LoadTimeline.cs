@@ -90,7 +90,7 @@ public static class LoadTimeline
         foreach (EventFact e in facts.Events)
         {
             if (!e.Darkening) continue;
-            double lag = e.Cause == LoadCause.Noise ? 1.0 : facts.AttributionLag;
+            double lag = e.Cause == LoadCause.Noise ? 1.0 : facts.AttributionLagAt?.Invoke(e.End + 1e-3) ?? facts.AttributionLag;
             if (t >= e.Start - 1e-6 && t <= e.End + lag && (best is null || e.End > best.End)) best = e;
         }
         if (best is not null)
@@ -98,7 +98,7 @@ public static class LoadTimeline
             return (best.Cause, $"{best.Description} at {Wording.Clock(facts.Clock(best.Start))}", best);
         }
 
-        if (facts.LampCouplingLux > 0 && previousEnd is double pe && t - pe <= facts.AttributionLag)
+        if (facts.LampCouplingLux > 0 && previousEnd is double pe && t - pe <= (facts.AttributionLagAt?.Invoke(pe + 1e-3) ?? facts.AttributionLag))
         {
             return (LoadCause.SelfIllumination,
                 $"the lamp's own light ({facts.LampCouplingLux:0.##} lx at the sensor) went out at {Wording.Clock(facts.Clock(pe))}, and the sensor saw darkness again", null);
@@ -143,10 +143,22 @@ public static class LoadTimeline
             switch (e.Kind)
             {
                 case DeviceEventKind.ThresholdReached: return ("timer ran out", true);
-                case DeviceEventKind.TriggerReleased: return ($"timer {timer}'s trigger input was released", false);
+                case DeviceEventKind.TriggerReleased: return ($"timer {timer}'s trigger input was released{By(facts, e.Time)}", false);
                 case DeviceEventKind.ResetHeld: return ($"timer {timer} was reset", false);
             }
         }
         return ($"timer {timer}'s output went low", false);
+    }
+
+    /// <summary>" by &lt;light event&gt; at &lt;clock&gt;" when a scenario light event was lighting the sensor when the
+    /// trigger was released (a headlight pass that brightened a trigger held low), else "".</summary>
+    private static string By(RunFacts facts, double t)
+    {
+        foreach (EventFact e in facts.Events)
+        {
+            if (e.Cause != LoadCause.Noise && t >= e.Start - 1e-6 && t <= e.End + 1.0)
+                return $" by {e.Description} at {Wording.Clock(facts.Clock(e.Start))}";
+        }
+        return "";
     }
 }

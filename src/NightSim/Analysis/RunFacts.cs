@@ -48,6 +48,13 @@ public sealed record TimerFacts(string PartId, double Resistance, double Capacit
     /// plain R from the supply.</summary>
     public double? OpenVoltage { get; init; }
 
+    /// <summary>Catalogue leakage limit of the timing electrolytic(s) (IEC 60384-4), A; NaN when none is an
+    /// electrolytic with a rated voltage.</summary>
+    public double LeakageLimit { get; init; } = double.NaN;
+
+    /// <summary>Part id of the timing capacitor (the first, when several are in parallel), or null.</summary>
+    public string? CapacitorId { get; init; }
+
     /// <summary>True for a CMOS timer (its input current is already negligible).</summary>
     public bool IsCmos { get; init; }
 
@@ -92,8 +99,8 @@ public sealed record TimerFacts(string PartId, double Resistance, double Capacit
 /// <param name="PartId">Relay part id.</param>
 /// <param name="PullIn">Pull-in coil voltage, V.</param>
 /// <param name="DropOut">Drop-out coil voltage, V.</param>
-/// <param name="CoilPeak">Highest coil voltage within [from, to] (run seconds), V, from the run's traces; NaN when
-/// not recorded.</param>
+/// <param name="CoilPeak">Highest coil voltage that counts against pull-in within [from, to] (run seconds), V: the
+/// peak coil current times the coil resistance; NaN when not recorded.</param>
 public sealed record RelayFacts(string PartId, double PullIn, double DropOut, Func<double, double, double> CoilPeak);
 
 /// <summary>The light sensor and its switching level.</summary>
@@ -141,6 +148,10 @@ public sealed record RunFacts
     /// <summary>How long after a darkening edge (event end) a switch-on is still attributed to it, seconds
     /// (the sensor's decay lag and the trigger network).</summary>
     public double AttributionLag { get; init; } = 30.0;
+
+    /// <summary>The attribution lag for a darkening edge at run time t, seconds (the sensor slows down in the dark);
+    /// null: <see cref="AttributionLag"/> everywhere.</summary>
+    public Func<double, double>? AttributionLagAt { get; init; }
 
     /// <summary>Clock time of a run time.</summary>
     public DateTimeOffset Clock(double runSeconds) => TimeZoneInfo.ConvertTime(Origin.AddSeconds(runSeconds), TimeZone);

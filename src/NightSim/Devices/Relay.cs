@@ -60,6 +60,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     private static readonly ParameterSpec s_coilInductance = ParameterSpec.Number("coilInductance", "H", "Coil inductance") with { Default = s_defaults.CoilInductance, Min = 1e-9, Max = 1e3 };
     private static readonly ParameterSpec s_pullIn = ParameterSpec.Number("pullIn", "V", "Pull-in (must-operate) coil voltage") with { Default = s_defaults.PullIn, Min = 1e-3, Max = 1e4 };
     private static readonly ParameterSpec s_dropOut = ParameterSpec.Number("dropOut", "V", "Drop-out (must-release) coil voltage; above 0 V (a relay at 0 V would never release)") with { Default = s_defaults.DropOut, Min = 1e-3, Max = 1e4 };
+    private static readonly ParameterSpec s_thresholdTolerance = ParameterSpec.Number("thresholdTolerance", "", "Relative spread of pullIn and dropOut between parts, for `nightsim spread`.") with { Default = 0.1, Min = 0, Max = 0.5 };
     private static readonly ParameterSpec s_operateTime = ParameterSpec.Number("operateTime", "s", "Armature travel time after pull-in") with { Default = s_defaults.OperateTime, Min = 0, Max = 10 };
     private static readonly ParameterSpec s_releaseTime = ParameterSpec.Number("releaseTime", "s", "Armature travel time after drop-out") with { Default = s_defaults.ReleaseTime, Min = 0, Max = 10 };
     private static readonly ParameterSpec s_contactResistance = ParameterSpec.Number("contactResistance", "Ω", "Closed contact resistance") with { Default = s_defaults.ContactResistance, Min = 1e-6, Max = 1e3 };
@@ -76,7 +77,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         Pins = ["coilA", "coilB", "com", "no", "nc", "com2", "no2", "nc2"],
         OptionalPins = ["com", "no", "nc", "com2", "no2", "nc2"],
         PinsThatMustDiffer = ["coilA", "coilB"],
-        Parameters = [s_coilResistance, s_coilInductance, s_pullIn, s_dropOut, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact],
+        Parameters = [s_coilResistance, s_coilInductance, s_pullIn, s_dropOut, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact, s_thresholdTolerance],
         Check = CheckDefinition,
         FacesMains = part => part.Parameters.Has(s_load.Name),
         Create = part => [FromDefinition(part)],
@@ -110,9 +111,12 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         _contactA = new int[_contacts.Length];
         _contactB = new int[_contacts.Length];
         _contactSlots = new PairSlots[_contacts.Length];
-        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullIn, settings.DropOut, settings.CoilResistance);
+        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullIn, settings.DropOut, settings.CoilResistance, CoilCurrentLabel(name));
         PowerUp();
     }
+
+    /// <summary>Label of the coil-current unknown of a relay device named <paramref name="name"/>.</summary>
+    public static string CoilCurrentLabel(string name) => name + ".i";
 
     private static List<string> BuildNodes(string a, string b, IReadOnlyList<RelayContact> contacts)
     {
@@ -196,7 +200,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
 
     public override void Setup(SetupContext setup)
     {
-        _coil = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), Name + ".i");
+        _coil = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), CoilCurrentLabel(Name));
         _sBrBr = setup.Slot(_coil.K, _coil.K);
         for (int k = 0; k < _contacts.Length; k++)
         {

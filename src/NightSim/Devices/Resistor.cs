@@ -27,7 +27,7 @@ public sealed class Resistor : Device, Roles.IDcElement
         Parameters =
         [
             ParameterSpec.Number("value", "Ω", "Resistance, e.g. \"4k7\".") with { Required = true, Min = 1e-6, Max = 1e15 },
-            ParameterSpec.Number("tolerance", "", "Relative tolerance, e.g. \"5%\" or 0.05: recorded for tolerance spreads (a later feature); a single run uses the nominal value.") with { Default = 0.05, Min = 0, Max = 0.5 },
+            ParameterSpec.Number("tolerance", "", "Relative tolerance, e.g. \"5%\" or 0.05: used by `nightsim spread`; a single run uses the nominal value.") with { Default = 0.05, Min = 0, Max = 0.5 },
         ],
         Create = def => [new Resistor(def.Id, def.Id, def.Node("a"), def.Node("b"), def.Parameters.Number("value"))],
         ConductsDc = true,

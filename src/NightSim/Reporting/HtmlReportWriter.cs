@@ -33,6 +33,7 @@ public static class HtmlReportWriter
         if (report.Cautions.Count > 0) AppendCautions(h, report.Cautions);
         AppendFindings(h, report.Findings);
         AppendNights(h, report.Nights);
+        AppendTargets(h, report);
         AppendEvents(h, report.Events);
         AppendFigures(h, figures);
         AppendParts(h, report);
@@ -184,6 +185,31 @@ public static class HtmlReportWriter
             h.Append("</tbody>\n");
         }
         h.Append("</table>\n</div>\n</section>\n");
+    }
+
+    private static void AppendTargets(StringBuilder h, NightReport report)
+    {
+        bool hasTargets = report.TargetResults.Any(t => t.Checks.Count > 0);
+        if (!hasTargets && report.Nights.Count < 2) return;
+        h.Append("<section id=\"targets\">\n<h2>").Append(hasTargets ? "Targets" : "Summary across nights").Append("</h2>\n<ul class=\"overview\">\n");
+        foreach (string line in TargetsText.OverviewLines(report.Overview, hasTargets)) h.Append("<li>").Append(Esc(line)).Append("</li>\n");
+        h.Append("</ul>\n");
+        if (hasTargets)
+        {
+            h.Append("<div class=\"scroll\">\n<table class=\"targets\">\n<thead>\n<tr><th scope=\"col\">Night</th><th scope=\"col\">Target</th>")
+             .Append("<th scope=\"col\">Result</th><th scope=\"col\">Margin</th><th scope=\"col\">Detail</th></tr>\n</thead>\n<tbody>\n");
+            foreach (Targets.NightTargets t in report.TargetResults)
+            {
+                foreach (Targets.TargetCheck c in t.Checks)
+                {
+                    h.Append("<tr class=\"").Append(c.Pass ? "pass" : "fail").Append("\"><td>").Append(t.Date.ToString("yyyy-MM-dd", s_inv))
+                     .Append("</td><td><code>").Append(Esc(c.Target)).Append("</code></td><td>").Append(c.Pass ? "pass" : "FAIL")
+                     .Append("</td><td class=\"num\">").Append(Esc(TargetsText.Margin(c))).Append("</td><td>").Append(Esc(c.Detail)).Append("</td></tr>\n");
+                }
+            }
+            h.Append("</tbody>\n</table>\n</div>\n");
+        }
+        h.Append("</section>\n");
     }
 
     private static void AppendEvents(StringBuilder h, IReadOnlyList<ReportEvent> events)
@@ -338,6 +364,7 @@ table.nights thead th { font-size: 0.92em; }
 table.nights tbody.night:nth-of-type(even) td, table.events tbody tr:nth-child(even) td { background: #f6f8fa; }
 table.nights tbody.night td { border-bottom: 1px solid #d0d7df; }
 td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+tr.fail td { background: #fdecea; }
 td.date { white-space: nowrap; font-weight: 600; }
 td.bad { color: #b42318; font-weight: 700; }
 td.yes { color: #24492f; }

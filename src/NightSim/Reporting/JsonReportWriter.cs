@@ -31,9 +31,11 @@ public static class JsonReportWriter
         w.WriteNumber("seed", report.Seed);
         w.WriteString("circuitHash", report.CircuitHash);
 
+        WriteTargets(w, report.Targets);
         w.WriteStartArray("nights");
-        foreach (NightSummary n in report.Nights)
+        for (int ni = 0; ni < report.Nights.Count; ni++)
         {
+            NightSummary n = report.Nights[ni];
             w.WriteStartObject();
             w.WriteString("date", n.Date.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture));
             w.WriteString("verdict", ReportText.Verdict(n));
@@ -64,9 +66,25 @@ public static class JsonReportWriter
             w.WriteBoolean("missed", n.Missed);
             w.WriteBoolean("onAfterSunrise", n.OnAfterSunrise);
             w.WriteNumber("loadEnergyWh", Math.Round(n.LoadEnergyWh, 4));
+            Targets.NightTargets? checks = ni < report.TargetResults.Count ? report.TargetResults[ni] : null;
+            w.WriteBoolean("pass", Targets.NightsOverview.NightPasses(n, checks));
+            w.WriteStartArray("targets");
+            foreach (Targets.TargetCheck c in checks?.Checks ?? [])
+            {
+                w.WriteStartObject();
+                w.WriteString("target", c.Target);
+                w.WriteBoolean("pass", c.Pass);
+                if (c.Margin is double m) w.WriteNumber("margin", Math.Round(m, 4)); else w.WriteNull("margin");
+                w.WriteString("unit", c.Unit);
+                w.WriteString("detail", c.Detail);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
             w.WriteEndObject();
         }
         w.WriteEndArray();
+
+        WriteOverview(w, report.Overview);
 
         w.WriteStartArray("findings");
         foreach (Analysis.Finding f in report.Findings)
@@ -124,6 +142,74 @@ public static class JsonReportWriter
         foreach (string c in report.Cautions) w.WriteStringValue(c);
         w.WriteEndArray();
         w.WriteEndObject();
+    }
+
+    private static void WriteTargets(Utf8JsonWriter w, Sky.DesignTargets? t)
+    {
+        if (t is null)
+        {
+            w.WriteNull("targets");
+            return;
+        }
+        w.WriteStartObject("targets");
+        WriteNumberOrNull(w, "switchOnLuxMin", t.SwitchOnLuxMin);
+        WriteNumberOrNull(w, "switchOnLuxMax", t.SwitchOnLuxMax);
+        WriteNumberOrNull(w, "switchOnMinutesAfterSunset", t.SwitchOnMinutesAfterSunset);
+        WriteNumberOrNull(w, "onTimeMinSeconds", t.OnTimeMin);
+        WriteNumberOrNull(w, "onTimeMaxSeconds", t.OnTimeMax);
+        if (t.OffBy is TimeSpan off) w.WriteString("offBy", $"{(int)off.TotalHours:00}:{off.Minutes:00}"); else w.WriteNull("offBy");
+        w.WriteBoolean("noFalseTrigger", t.NoFalseTrigger);
+        w.WriteBoolean("noEarlyOff", t.NoEarlyOff);
+        w.WriteBoolean("noChatter", t.NoChatter);
+        w.WriteBoolean("offAtSunrise", t.OffAtSunrise);
+        w.WriteEndObject();
+    }
+
+    private static void WriteOverview(Utf8JsonWriter w, Targets.NightsOverview o)
+    {
+        w.WriteStartObject("summary");
+        w.WriteNumber("nights", o.Nights);
+        w.WriteNumber("nightsPassed", o.NightsPassed);
+        w.WriteNumber("passRate", Math.Round(o.PassRate, 6));
+        w.WriteNumber("missedNights", o.MissedNights);
+        w.WriteNumber("falseTriggers", o.FalseTriggers);
+        w.WriteNumber("earlyOffs", o.EarlyOffs);
+        w.WriteNumber("chatterBursts", o.ChatterBursts);
+        w.WriteNumber("nightsOnAfterSunrise", o.NightsOnAfterSunrise);
+        WriteSwitchOn(w, "earliestSwitchOn", o.EarliestSwitchOn);
+        WriteSwitchOn(w, "latestSwitchOn", o.LatestSwitchOn);
+        WriteNumberOrNull(w, "onTimeMinSeconds", o.OnTimeMin is double a ? Math.Round(a, 3) : null);
+        WriteNumberOrNull(w, "onTimeMaxSeconds", o.OnTimeMax is double b ? Math.Round(b, 3) : null);
+        if (o.WorstNight is DateOnly d)
+        {
+            w.WriteString("worstNight", d.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture));
+            w.WriteString("worstReason", o.WorstReason);
+        }
+        else
+        {
+            w.WriteNull("worstNight");
+            w.WriteNull("worstReason");
+        }
+        w.WriteNumber("energyWh", Math.Round(o.EnergyWh, 4));
+        w.WriteEndObject();
+    }
+
+    private static void WriteSwitchOn(Utf8JsonWriter w, string name, (DateTimeOffset At, double MinutesAfterSunset)? v)
+    {
+        if (v is null)
+        {
+            w.WriteNull(name);
+            return;
+        }
+        w.WriteStartObject(name);
+        w.WriteString("at", ReportText.Iso(v.Value.At));
+        w.WriteNumber("minutesAfterSunset", Math.Round(v.Value.MinutesAfterSunset, 3));
+        w.WriteEndObject();
+    }
+
+    private static void WriteNumberOrNull(Utf8JsonWriter w, string name, double? v)
+    {
+        if (v is double x) w.WriteNumber(name, x); else w.WriteNull(name);
     }
 
     private static void WriteTime(Utf8JsonWriter w, string name, DateTimeOffset? t)

@@ -38,6 +38,15 @@ public sealed record NightReport
     /// <summary>SHA-256 (hex) of the parts as simulated: equal hashes mean the same circuit, whatever the comments or layout.</summary>
     public string CircuitHash { get; init; } = "";
 
+    /// <summary>What the design must do (from the scenario), or null when none is stated.</summary>
+    public Sky.DesignTargets? Targets { get; init; }
+
+    /// <summary>The target checks of each night, in the order of <see cref="Nights"/> (empty without targets).</summary>
+    public IReadOnlyList<Targets.NightTargets> TargetResults { get; init; } = [];
+
+    /// <summary>The summary across nights (pass rate, earliest and latest switch-on, on-time range, worst night).</summary>
+    public Targets.NightsOverview Overview { get; init; } = new();
+
     /// <summary>Mains cautions, printed whenever the design touches mains.</summary>
     public IReadOnlyList<string> Cautions { get; init; } = [];
 }

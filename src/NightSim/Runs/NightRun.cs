@@ -1,10 +1,12 @@
 using NightSim.Analysis;
 using NightSim.Devices;
+using NightSim.Devices.Roles;
 using NightSim.Netlist;
 using NightSim.Reporting;
 using NightSim.Results;
 using NightSim.Sky;
 using NightSim.Sky.Events;
+using NightSim.Targets;
 using NightSim.Transient;
 using NightSim.Units;
 using NightSim.Mna;
@@ -45,7 +47,9 @@ public static class NightRun
         if (problems.Count > 0) throw new RunInputException(problems);
 
         Circuit circuit = Circuit.FromDevices(net.Name, devices, light);
-        TransientOptions options = request.Options with { RecordNodes = nodes, ConstantLux = request.ConstantLux };
+        // The nodes, plus each relay's coil current: the analysis compares the coil against its pull-in from it.
+        List<string> recorded = [.. nodes, .. devices.Select(d => d.Role).OfType<RelayCoilRole>().Select(r => r.CoilCurrent)];
+        TransientOptions options = request.Options with { RecordNodes = recorded, ConstantLux = request.ConstantLux };
         var solver = new TransientSolver(circuit, options, light);
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
@@ -191,6 +195,8 @@ public static class NightRun
             findings.Insert(0, new Finding(Severity.Error, "simulation-failed", $"The simulation stopped at {ReportText.Clock(facts.Clock(f.Time))}: {f.Reason}", f.Hint));
         }
         SolverStatistics st = sim.Statistics;
+        DesignTargets? targets = request.Scenario?.Targets;
+        IReadOnlyList<NightTargets> checks = targets is null ? [] : analysis.Nights.Select(n => TargetEvaluator.Evaluate(targets, n)).ToList();
         return new NightReport
         {
             Tool = request.Tool,
@@ -207,6 +213,9 @@ public static class NightRun
             Parts = ReportPart.List(request.Netlist),
             CircuitHash = ReportPart.Hash(request.Netlist),
             Cautions = TouchesMains(request.Netlist) ? ReportText.MainsCautions : [],
+            Targets = targets,
+            TargetResults = checks,
+            Overview = NightsOverview.Build(analysis.Nights, checks),
         };
     }
 }

@@ -1,5 +1,6 @@
 using NightSim.Analysis;
 using NightSim.Devices;
+using NightSim.Devices.Light;
 using NightSim.Devices.Roles;
 using NightSim.Netlist;
 using NightSim.Results;
@@ -33,7 +34,17 @@ public static class RunFactsBuilder
             }
         }
 
-        double lag = devices.Select(d => d.Role).OfType<LightSensorRole>().Select(r => r.LagSeconds).DefaultIfEmpty(0).Max();
+        // A switch-on is blamed on a darkening edge up to five of the sensor's fall time constants after it, at the
+        // light level after the edge (a slow cell in the dark can take minutes to see the new dusk), and never less
+        // than 30 s (the trigger network).
+        var sensors = devices.OfType<ILightSensor>().ToList();
+        double LagAt(double t)
+        {
+            double slowest = 0;
+            foreach (ILightSensor s in sensors)
+                slowest = Math.Max(slowest, s.FallTimeConstant((lux?.Invoke(t) ?? 0) * s.Light.Gain));
+            return Math.Max(30.0, 5 * slowest);
+        }
         return new RunFacts
         {
             Origin = profile?.Origin ?? PlainOrigin,
@@ -46,12 +57,13 @@ public static class RunFactsBuilder
             DeviceEvents = sim.Events,
             Timers = TimingNetwork.Extract(devices, node => TimingNetwork.FixedVoltage(devices, node) ?? MeasuredSupply(sim, node)),
             Relays = devices.Select(d => d.Role).OfType<RelayCoilRole>()
-                .Select(r => new RelayFacts(r.PartId, r.PullIn, r.DropOut, (from, to) => PeakDifference(sim, r.CoilA, r.CoilB, from, to))).ToList(),
+                .Select(r => new RelayFacts(r.PartId, r.PullIn, r.DropOut, (from, to) => PeakCoilVoltage(sim, r, from, to))).ToList(),
             Sensor = sensor is null ? null : new SensorFacts(sensor.PartId, profile is null ? null : SwitchingLevel.Find(request.Netlist, request.Options)),
             SkyLux = lux,
             SensorLux = lux,
             LampCouplingLux = profile?.LampCouplings.Sum(c => c.Lux) ?? 0,
-            AttributionLag = Math.Max(30.0, 5 * lag),
+            AttributionLag = LagAt(0),
+            AttributionLagAt = LagAt,
         };
     }
 
@@ -82,20 +94,19 @@ public static class RunFactsBuilder
         return list;
     }
 
-    /// <summary>Highest V(a) − V(b) recorded within [from, to], V; NaN when a node is not recorded or nothing falls in
-    /// the window (ground reads 0 V).</summary>
-    public static double PeakDifference(SimulationResult sim, string a, string b, double from, double to)
+    /// <summary>Highest coil voltage that counts against pull-in within [from, to] (run seconds), V: the largest coil
+    /// current recorded in the window times the coil resistance (the armature follows the current, so the L/R rise
+    /// and a sagging drive are both in it; each trace bucket keeps its true minimum and maximum, so no peak is lost).
+    /// NaN when the coil current is not recorded or nothing falls in the window.</summary>
+    public static double PeakCoilVoltage(SimulationResult sim, RelayCoilRole coil, double from, double to)
     {
-        Trace? ta = Ground.Is(a) ? null : sim.Trace(a), tb = Ground.Is(b) ? null : sim.Trace(b);
-        if ((ta is null && !Ground.Is(a)) || (tb is null && !Ground.Is(b))) return double.NaN;
-        Trace reference = ta ?? tb!;
+        if (sim.Trace(coil.CoilCurrent) is not Trace current) return double.NaN;
         double peak = double.NaN;
-        int count = Math.Min(ta?.Values.Count ?? int.MaxValue, tb?.Values.Count ?? int.MaxValue);
-        for (int i = 0; i < count; i++)
+        for (int i = 0; i < current.Times.Count; i++)
         {
-            double t = reference.Times[i];
+            double t = current.Times[i];
             if (t < from || t > to) continue;
-            double v = (ta?.Values[i] ?? 0.0) - (tb?.Values[i] ?? 0.0);
+            double v = Math.Abs(current.Values[i]) * coil.CoilResistance;
             if (double.IsNaN(peak) || v > peak) peak = v;
         }
         return peak;

@@ -90,8 +90,13 @@ public static class TimingNetwork
         double gLeak = 1.0 / rTh - 1.0 / r0;
         double leakage = gLeak > 1e-18 * (1.0 / r0) ? 1.0 / gLeak : double.PositiveInfinity;
         double drain = v0 / r0 - vTh / rTh;
+        // The timing electrolytics' catalogue leakage limits (parts as bought), for the worst-case check.
+        var timingCaps = elements.OfType<Capacitor>().Where(c => c.Nodes.Contains(timer.Threshold)).ToList();
+        var limits = timingCaps.Select(c => c.CatalogueLeakageLimit).Where(l => !double.IsNaN(l)).ToList();
         return new TimerFacts(timer.PartId, r0, capacitance, vs, drain, leakage)
         {
+            LeakageLimit = limits.Count > 0 ? limits.Sum() : double.NaN,
+            CapacitorId = timingCaps.FirstOrDefault()?.PartId,
             OpenVoltage = v0,
             IsCmos = timer.Family == TimerFamily.Cmos,
         };

@@ -34,6 +34,9 @@ public sealed class LightProfile : ILightSignal
     private readonly bool _logReplace;
     private readonly bool _logAtSensor;
     private readonly double[] _breakpoints;
+    /// <summary>Per channel: running total of |Δ ln lux| of the sky part (Sun, Moon, night floor, light floor) over the
+    /// sun grid, from run time 0; the light-aware step limit reads it.</summary>
+    private readonly double[][] _skyVariation;
 
     private LightProfile(LightScenario scenario)
     {
@@ -52,12 +55,16 @@ public sealed class LightProfile : ILightSignal
         Weather w = scenario.Weather;
         _skyFactor = w.SkyFactor;
         // ln of the model's Sun term on the same grid: Lux interpolates it (relative error ≪ 1e-4 over 30 s); the
-        // intervals holding the model's −5/6° step are evaluated exactly so the step stays a step.
+        // intervals touching the band that joins the day and twilight branches (curved over a third of a degree) are
+        // evaluated exactly.
         _logSunLux = new double[n + 1];
         _exactInterval = new bool[n];
         for (int i = 0; i <= n; i++) _logSunLux[i] = Math.Log(Math.Max(IlluminanceModel.SunLux(_elevation[i], _skyFactor), 1e-300));
         for (int i = 0; i < n; i++)
-            _exactInterval[i] = (_elevation[i] < IlluminanceModel.RefractionSwitchElevation) != (_elevation[i + 1] < IlluminanceModel.RefractionSwitchElevation);
+        {
+            double lo = Math.Min(_elevation[i], _elevation[i + 1]), hi = Math.Max(_elevation[i], _elevation[i + 1]);
+            _exactInterval[i] = hi >= IlluminanceModel.BlendLowElevation && lo <= IlluminanceModel.BlendHighElevation;
+        }
         _nightLux = (IlluminanceModel.ClearNightFloorLux + w.MoonLux) / w.SkyFactor;
         if (w.ModeledMoon)
         {
@@ -72,6 +79,34 @@ public sealed class LightProfile : ILightSignal
         _floorLux = w.FloorLux;
         _channelNames = [.. scenario.Channels.Select(c => c.Name)];
         _exposure = [.. scenario.Channels.Select(c => c.Exposure)];
+        _skyVariation = new double[_exposure.Length][];
+        for (int c = 0; c < _exposure.Length; c++)
+        {
+            var v = new double[n + 1];
+            double previous = Math.Log(Math.Max(GridSkyLux(0) * _exposure[c] + _floorLux, 1e-9));
+            for (int i = 1; i <= n; i++)
+            {
+                double current = Math.Log(Math.Max(GridSkyLux(i) * _exposure[c] + _floorLux, 1e-9));
+                double increment = Math.Abs(current - previous);
+                if (_exactInterval[i - 1])
+                {
+                    // The joining band is curved within the interval: sum the change over sub-samples of the exact
+                    // curve and count it half again, so that a step inside the band keeps to the bound.
+                    const int parts = 16;
+                    double sum = 0.0, last = previous;
+                    for (int k = 1; k <= parts; k++)
+                    {
+                        double here = Math.Log(Math.Max(SkyLuxBetween(i - 1, (double)k / parts) * _exposure[c] + _floorLux, 1e-9));
+                        sum += Math.Abs(here - last);
+                        last = here;
+                    }
+                    increment = 1.5 * Math.Max(sum, increment);
+                }
+                v[i] = v[i - 1] + increment;
+                previous = current;
+            }
+            _skyVariation[c] = v;
+        }
 
         // Draw every random event now: one stream per definition, named kind#ordinal.
         var sink = new EventSink();
@@ -116,15 +151,10 @@ public sealed class LightProfile : ILightSignal
         _logReplace = scenario.LightLogMode == LightLogMode.Replace;
         _logAtSensor = scenario.LightLogAtSensor;
 
-        // Breakpoints: event edges, log samples, and the model's step at −5/6° elevation.
+        // Breakpoints: event edges, log samples, noise pulses (the sky itself is continuous).
         var bp = new List<double>();
         foreach (ILightEvent e in LightEvents) e.AddBreakpoints(bp);
         bp.AddRange(_logTimes);
-        for (int i = 0; i < n; i++)
-        {
-            double a = _elevation[i] - IlluminanceModel.RefractionSwitchElevation, b = _elevation[i + 1] - IlluminanceModel.RefractionSwitchElevation;
-            if ((a < 0) != (b < 0)) bp.Add(RefineSwitch(i, jd0));
-        }
         foreach (NoiseInjection p in NoiseInjections) { bp.Add(p.Time); bp.Add(p.Time + p.Width); }
         bp.Sort();
         var unique = new List<double>(bp.Count);
@@ -141,17 +171,50 @@ public sealed class LightProfile : ILightSignal
         SolarEvents = [.. Enumerable.Range(0, scenario.Nights).Select(k => Twilight.ForNight(site, scenario.Start.AddDays(k)))];
     }
 
-    private double RefineSwitch(int i, double jd0)
+    private double GridSkyLux(int i) => Math.Exp(_logSunLux[i]) + (_moonLux?[i] ?? 0.0) + _nightLux;
+
+    /// <summary>Open-sky lux (no clouds) a fraction <paramref name="f"/> into grid interval <paramref name="i"/>, with the
+    /// Sun term from the exact model.</summary>
+    private double SkyLuxBetween(int i, double f)
     {
-        double lo = i * _gridStep, hi = lo + _gridStep;
-        bool loBelow = _elevation[i] < IlluminanceModel.RefractionSwitchElevation;
-        for (int k = 0; k < 40; k++)
+        double sun = IlluminanceModel.SunLux(_elevation[i] + f * (_elevation[i + 1] - _elevation[i]), _skyFactor);
+        double moon = _moonLux is null ? 0.0 : _moonLux[i] + f * (_moonLux[i + 1] - _moonLux[i]);
+        return sun + moon + _nightLux;
+    }
+
+    /// <inheritdoc />
+    /// <remarks>From the running total of |Δ ln lux| of the sky on the sun grid (linear within a grid interval): the step
+    /// ends where that total has grown by <paramref name="change"/> on the channel that changes fastest. Event edges,
+    /// and log samples are breakpoints and are landed on separately; the band joining the day and twilight branches is
+    /// counted from sub-samples of the exact curve.</remarks>
+    public double StepLimit(double time, double change)
+    {
+        if (!(time >= 0) || time >= Duration) return double.PositiveInfinity;
+        double limit = double.PositiveInfinity;
+        foreach (double[] v in _skyVariation)
         {
-            double mid = 0.5 * (lo + hi);
-            bool below = SunPosition.Elevation(jd0 + mid / 86400.0, Scenario.Site.Latitude, Scenario.Site.Longitude) < IlluminanceModel.RefractionSwitchElevation;
-            if (below == loBelow) lo = mid; else hi = mid;
+            double target = Variation(v, time) + change;
+            if (target >= v[^1]) continue;
+            // First grid point at or beyond the target, then linear within the interval before it.
+            int lo = 0, hi = v.Length - 1;
+            while (lo < hi)
+            {
+                int mid = (lo + hi) >>> 1;
+                if (v[mid] < target) lo = mid + 1; else hi = mid;
+            }
+            int k = Math.Max(lo, 1);
+            double span = v[k] - v[k - 1];
+            double at = (k - 1 + (span > 0 ? (target - v[k - 1]) / span : 1.0)) * _gridStep;
+            limit = Math.Min(limit, Math.Max(at - time, 0.0));
         }
-        return 0.5 * (lo + hi);
+        return limit;
+    }
+
+    private double Variation(double[] v, double time)
+    {
+        double x = time / _gridStep;
+        int i = Math.Min((int)x, v.Length - 2);
+        return v[i] + (x - i) * (v[i + 1] - v[i]);
     }
 
     /// <summary>Builds the profile (all random draws happen here).</summary>

@@ -36,6 +36,10 @@ public sealed record LightScenario
     public bool LightLogAtSensor { get; init; }
     /// <summary>File the scenario came from, or null.</summary>
     public string? SourceFile { get; init; }
+    /// <summary>What the design must do ("targets"), or null when the scenario states none.</summary>
+    public DesignTargets? Targets { get; init; }
+    /// <summary>Sky mix per month for studies over many dates ("weatherMix"), or null.</summary>
+    public WeatherMix? WeatherMix { get; init; }
     /// <summary>Non-fatal notes (e.g. gaps in the light log).</summary>
     public IReadOnlyList<ScenarioError> Warnings { get; init; } = [];
 

@@ -17,7 +17,7 @@ public static class ScenarioLoader
     public const double MinEventMinutes = 1.0 / 60.0;
 
     private static readonly string[] s_topLevel =
-        ["$schema", "name", "description", "site", "start", "nights", "seed", "sensor", "channels", "weather", "events", "lightLog"];
+        ["$schema", "name", "description", "site", "start", "nights", "seed", "sensor", "channels", "weather", "events", "lightLog", "targets", "weatherMix"];
 
     /// <summary>Loads <paramref name="path"/>; the scenario or null with the errors.</summary>
     public static LightScenario? Load(string path, out IReadOnlyList<ScenarioError> errors, LightEventCatalog? catalog = null)
@@ -194,12 +194,16 @@ public static class ScenarioLoader
             }
         }
 
+        DesignTargets? targets = root.TryGetProperty("targets", out JsonElement tg) ? TargetsReader.Read(tg, "$.targets", ctx) : null;
+        WeatherMix? mix = root.TryGetProperty("weatherMix", out JsonElement wm) ? WeatherMix.Read(wm, "$.weatherMix", ctx) : null;
+
         if (site is null || startText is null || ctx.Errors.Count > 0) return null;
         return new LightScenario
         {
             Name = name, Description = description, Site = site, Start = start, Nights = nights,
             Seed = seed, SeedGiven = seedValue is not null, Channels = channels, Weather = weather, Events = events,
             LightLog = log, LightLogMode = mode, LightLogAtSensor = atSensor, SourceFile = sourceFile, Warnings = warnings,
+            Targets = targets, WeatherMix = mix,
         };
     }
 

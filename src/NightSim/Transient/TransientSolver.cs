@@ -88,10 +88,13 @@ public sealed partial class TransientSolver
     private bool _havePrev;     // x_{n-1} and q̇_{n-1} are valid (no jump since)
     private bool _needRestart;  // next step is a backward-Euler restart step
     private bool _rejectedLast;
+    private bool _ramping;      // steps since the last restart have all grown as fast as allowed: RestartGrowth applies
     private int _failuresHere;
     private double _opGmin;
+    private double _opTime; // time at which an operating point is solved (0 but for a resting point)
     private SimulationFailure? _failure;
     private long _cpuStart;
+    private long _steadyAllocStart;
     private bool _begun;
     private double _lastStepH; // h of the step just computed (trial)
     private bool _lastStepWasTrBdf2;
@@ -226,7 +229,7 @@ public sealed partial class TransientSolver
         for (int i = 0; i < _n; i++) _qd[i] = -_ctx.J[i];
         SetTolerances();
         if (_options.Start == StartMode.PowerUp) _needRestart = !AlgebraicRowsSatisfied();
-        RecordPoint();
+        RecordPoint(keepRow: true);
         EvaluateEvents(_x, 0.0, _gNew, _gOld);
         Array.Copy(_gNew, _gOld, _gOld.Length);
         _h = _options.FixedStep ?? _options.RestartStep;
@@ -277,6 +280,7 @@ public sealed partial class TransientSolver
             // PlanStep: controller proposal, limits, breakpoint landing without sliver steps.
             double bp = NextBreakpoint(t);
             double h = Math.Min(_h, _maxStep);
+            if (_light is not null && _options.FixedStep is null) h = Math.Min(h, _light.StepLimit(t, _options.LightChange));
             if (_options.FixedStep is null) h = Math.Max(h, hMin);
             double dist = bp - t;
             bool landing = false;
@@ -291,6 +295,7 @@ public sealed partial class TransientSolver
             }
 
             bool restart = _needRestart;
+            long factorsBefore = _solver.Factorizations;
             bool ok = restart ? StepBackwardEuler(t, h, predict: false) : TakeStep(t, h);
             if (!ok)
             {
@@ -344,11 +349,14 @@ public sealed partial class TransientSolver
                 // At the smallest step the time resolution itself (a few ulp of t late in a long run) limits the
                 // accuracy: accept, and count it, rather than stop the run.
                 if (!(r <= 1.0)) _stats.ForcedSteps++;
-                hNext = ProposeStep(h, Math.Min(r, 1.0));
+                hNext = ProposeStep(h, Math.Min(r, 1.0), reusedLu: _solver.Factorizations == factorsBefore);
             }
             else if (restart)
             {
+                // The restart step only settles the algebraic unknowns; from the next (error-checked) step on, the ramp
+                // lets the error estimate choose how fast h grows back.
                 hNext = _options.FixedStep ?? Math.Max(h, _options.RestartStep);
+                _ramping = true;
             }
 
             // Events: locate the earliest sign change in (t, t + h], re-take the step up to it, fire.
@@ -372,7 +380,7 @@ public sealed partial class TransientSolver
             }
 
             _opGmin = 0; // a temporary shunt lasts one accepted step
-            Commit(t, h, landing ? bp : double.NaN, restart);
+            Commit(t, h, landing ? bp : double.NaN, restart, keepRow: fired || landing || restart);
             StepEnd end = StepEnd.Smooth;
             if (fired)
             {
@@ -421,22 +429,33 @@ public sealed partial class TransientSolver
         _stats.Factorizations = _solver.Factorizations;
         _stats.PivotAnalyses = _solver.Analyses;
         _stats.CpuSeconds = (Environment.CpuUsage.TotalTime.Ticks - _cpuStart) / (double)TimeSpan.TicksPerSecond;
+        if (_stats.AcceptedSteps > SolverStatistics.SteadyFromStep)
+        {
+            _stats.SteadyAllocatedBytes = GC.GetAllocatedBytesForCurrentThread() - _steadyAllocStart;
+            _stats.SteadySteps = _stats.AcceptedSteps - SolverStatistics.SteadyFromStep;
+        }
         return new SimulationResult(_recorder?.Build() ?? [], [.. _eventLog.Events], _stats,
             _failure?.Time ?? _time.Value, _light?.Origin, _failure);
     }
 
-    private double ProposeStep(double h, double r)
+    /// <param name="reusedLu">The step reused the previous factorisation (a linear circuit at constant h): keeping h
+    /// keeps that saving. Otherwise h follows the error estimate freely.</param>
+    private double ProposeStep(double h, double r, bool reusedLu)
     {
-        double fac = r > 0 ? 0.9 * Math.Pow(r / _options.ErrorTarget, -1.0 / 3.0) : _options.MaxGrowth;
+        // Right after a restart the error estimate alone limits growth (up to RestartGrowth per step) until the first
+        // step that it holds back; from then on the usual MaxGrowth applies.
+        double maxGrowth = _ramping && !_rejectedLast ? Math.Max(_options.RestartGrowth, _options.MaxGrowth) : _options.MaxGrowth;
+        double fac = r > 0 ? 0.9 * Math.Pow(r / _options.ErrorTarget, -1.0 / 3.0) : maxGrowth;
+        if (!(fac >= maxGrowth) || _rejectedLast) _ramping = false;
         double hNew;
-        if (fac >= 1.0 && fac <= 1.2) hNew = h; // hysteresis: keep h
-        else hNew = h * Math.Min(_options.MaxGrowth, Math.Max(0.2, fac));
+        if (fac >= 1.0 && (fac <= 1.2 && reusedLu || fac <= 1.02)) hNew = h; // hysteresis: keep h (and its LU)
+        else hNew = h * Math.Min(maxGrowth, Math.Max(0.2, fac));
         if (_rejectedLast) hNew = Math.Min(hNew, h);
         return hNew;
     }
 
     /// <summary>Make the point (t + h) the accepted point.</summary>
-    private void Commit(double t, double h, double landAt, bool restart)
+    private void Commit(double t, double h, double landAt, bool restart, bool keepRow)
     {
         if (_havePrev || restart)
         {
@@ -451,6 +470,7 @@ public sealed partial class TransientSolver
         _hLast = h;
         if (double.IsNaN(landAt)) _time.Advance(h); else _time.Set(landAt);
         _stats.NoteStep(h);
+        if (_stats.AcceptedSteps == SolverStatistics.SteadyFromStep) _steadyAllocStart = GC.GetAllocatedBytesForCurrentThread();
         _rejectedLast = false;
         _failuresHere = 0;
 
@@ -459,7 +479,7 @@ public sealed partial class TransientSolver
         _ctx.Time = tNow;
         _ctx.SourceScale = SourceScaleAt(tNow);
         foreach (Device d in _devices) d.Accept(_ctx);
-        RecordPoint();
+        RecordPoint(keepRow);
         if (_eventSource.Length > 0)
         {
             EvaluateEvents(_x, tNow, _gNew, _gOld);
@@ -468,7 +488,7 @@ public sealed partial class TransientSolver
         Accepted?.Invoke(this);
     }
 
-    private void RecordPoint() => _recorder?.Record(_time.Value, _x);
+    private void RecordPoint(bool keepRow) => _recorder?.Record(_time.Value, _x, keepRow);
 
     // ---------------------------------------------------------------- integration formulas
 

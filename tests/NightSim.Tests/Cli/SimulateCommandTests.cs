@@ -56,6 +56,28 @@ public sealed class SimulateCommandTests
     }
 
     [Fact]
+    public void Lux_Warns_For_Sensors_With_Their_Own_Light_And_Without_Sensors()
+    {
+        string dir = TempDir();
+        try
+        {
+            // dusk-timer-ramp.json: LDR1 has its own luxPoints, so --lux cannot reach it.
+            (int exit, _, string error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "dusk-timer-ramp.json"), "--for", "10ms", "--lux", "50", "--out", dir);
+            Assert.True(exit == 0, error);
+            Assert.Contains("warning: --lux does not apply to LDR1", error, StringComparison.Ordinal);
+            (exit, _, error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "rc-step.json"), "--for", "10ms", "--lux", "50", "--out", dir);
+            Assert.True(exit == 0, error);
+            Assert.Contains("--lux has no effect", error, StringComparison.Ordinal);
+            (exit, _, error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "rc-step.json"), "--for", "10ms", "--out", dir);
+            Assert.DoesNotContain("--lux", error, StringComparison.Ordinal);
+        }
+        finally
+        {
+            if (Directory.Exists(dir)) Directory.Delete(dir, recursive: true);
+        }
+    }
+
+    [Fact]
     public void Bad_Duration_Exits_1_And_Writes_Nothing()
     {
         string dir = TempDir();
