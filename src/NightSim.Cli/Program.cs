@@ -14,6 +14,7 @@ internal static class Program
             "NightSim: simulate dusk-activated, time-limited lighting controllers through synthetic nights before you solder and mount them.");
 
         // Verbs: one `root.Subcommands.Add(XCommand.Create());` line each, in help order (check, sky, simulate, …).
+        root.Subcommands.Add(InitCommand.Create());
         root.Subcommands.Add(CheckCommand.Create());
         root.Subcommands.Add(SimulateCommand.Create());
         root.Subcommands.Add(SkyCommand.Create());
@@ -22,6 +23,7 @@ internal static class Program
         root.Subcommands.Add(YearCommand.Create());
         root.Subcommands.Add(MergeCommand.Create());
         root.Subcommands.Add(BenchCommand.Create());
+        root.Subcommands.Add(CompareCommand.Create());
 
         return root;
     }

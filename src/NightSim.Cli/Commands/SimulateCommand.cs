@@ -111,6 +111,9 @@ internal static class SimulateCommand
         return command;
     }
 
+    /// <summary>Traces the terminal summary of a plain transient lists.</summary>
+    private const int SummaryTraces = 8;
+
     private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList,
         StartMode startMode, string accuracy, TextWriter output, TextWriter error)
     {
@@ -207,8 +210,10 @@ internal static class SimulateCommand
             (startMode == StartMode.OperatingPoint ? "the operating point" : $"power-up ({EngineeringValue.Format(options.SupplyRamp, "s")} source ramp)"));
         output.WriteLine(string.Create(inv, $"  steps: {s.AcceptedSteps} accepted, {s.RejectedSteps} rejected; Newton iterations {s.NewtonIterations}; factorisations {s.Factorizations}"));
         output.WriteLine(string.Create(inv, $"  step size: {EngineeringValue.Format(s.MinStep, "s")} … {EngineeringValue.Format(s.MaxStep, "s")}; events {s.Events}; CPU {s.CpuSeconds:F3} s"));
-        foreach (Trace t in result.Traces.Take(8))
+        foreach (Trace t in result.Traces.Take(SummaryTraces))
             output.WriteLine($"  {t.Name}: final {EngineeringValue.Format(t.Values.Count > 0 ? t.Values[^1] : double.NaN, t.Unit)}, min {EngineeringValue.Format(t.Min, t.Unit)}, max {EngineeringValue.Format(t.Max, t.Unit)}");
+        if (result.Traces.Count > SummaryTraces)
+            output.WriteLine($"  (the first {SummaryTraces} of {result.Traces.Count} traces; every one is in trace.csv, or pick some with --nodes a,b)");
         output.WriteLine($"  wrote {tracePath} and {statsPath}");
         return CliErrors.Success;
     }

@@ -173,7 +173,7 @@ internal static class SimulateNight
             console.MarkupLine($"[grey]wrote {written.Count} files to {Markup.Escape(dir)}: report.html, report.json, trace.csv and {written.Count - 3} plot files[/]");
         }
         if (plotWarning is not null) error.WriteLine("warning: " + plotWarning);
-        return FailOn(report, s.FailOn);
+        return FailOn(report, s.FailOn, error);
     }
 
     /// <summary>
@@ -244,11 +244,16 @@ internal static class SimulateNight
     }
 
     /// <summary>Exit 4 when a finding is at or above --fail-on (warning or error), else 0.</summary>
-    private static int FailOn(NightReport report, string? failOn)
+    private static int FailOn(NightReport report, string? failOn, TextWriter error)
     {
         if (failOn is null) return CliErrors.Success;
         Analysis.Severity level = failOn == "warning" ? Analysis.Severity.Warning : Analysis.Severity.Error;
-        return report.Findings.Any(f => f.Severity >= level) ? CliErrors.FindingAtLevel : CliErrors.Success;
+        List<Analysis.Finding> tripped = report.Findings.Where(f => f.Severity >= level).ToList();
+        if (tripped.Count == 0) return CliErrors.Success;
+        // Say which findings tripped it, so a script's log shows why the exit code is not 0.
+        error.WriteLine($"--fail-on {failOn}: {tripped.Count} finding{(tripped.Count == 1 ? "" : "s")} at or above {failOn}: " +
+            string.Join(", ", tripped.Select(f => ReportText.Severity(f.Severity) + " " + f.Code + (f.At is DateTimeOffset at ? " at " + ReportText.Clock(at) : ""))));
+        return CliErrors.FindingAtLevel;
     }
 
     /// <summary>Maps the run's overall fraction to night-by-night progress.</summary>

@@ -32,22 +32,28 @@ public static class NightPlotBuilder
     private static readonly OxyColor s_marker = OxyColor.FromRgb(0x4F, 0x6D, 0x8F);
     private static readonly OxyColor s_emphasis = OxyColor.FromRgb(0xC0, 0x29, 0x1E);
 
-    private static readonly OxyColor[] s_lightColors = [OxyColor.FromRgb(0xD0, 0x8A, 0x10), OxyColor.FromRgb(0x8C, 0x5A, 0x00)];
-    private static readonly OxyColor[] s_voltColors =
-    [
-        OxyColor.FromRgb(0x1B, 0x7F, 0x79), // teal
-        OxyColor.FromRgb(0x6A, 0x4C, 0x93), // violet
-        OxyColor.FromRgb(0x2E, 0x5E, 0xAA), // blue
-        OxyColor.FromRgb(0xA0, 0x52, 0x6E), // plum
-        OxyColor.FromRgb(0x55, 0x7A, 0x2F), // moss
-    ];
-    private static readonly OxyColor[] s_stateColors =
-    [
-        OxyColor.FromRgb(0x2E, 0x7D, 0x32), // green
-        OxyColor.FromRgb(0xC2, 0x5E, 0x00), // orange
-        OxyColor.FromRgb(0x2E, 0x5E, 0xAA),
-        OxyColor.FromRgb(0x6A, 0x4C, 0x93),
-    ];
+    // Traces use the colour-blind-safe palette of Okabe, M. & Ito, K. (2008), "Color Universal Design (CUD): how to
+    // make figures and presentations that are friendly to colorblind people": sensor blue, trigger vermillion,
+    // timing capacitor bluish green, light orange; these stay distinct in the common colour-vision deficiencies.
+    private static readonly OxyColor s_cudOrange = OxyColor.FromRgb(0xE6, 0x9F, 0x00);
+    private static readonly OxyColor s_cudSkyBlue = OxyColor.FromRgb(0x56, 0xB4, 0xE9);
+    private static readonly OxyColor s_cudGreen = OxyColor.FromRgb(0x00, 0x9E, 0x73);
+    private static readonly OxyColor s_cudBlue = OxyColor.FromRgb(0x00, 0x72, 0xB2);
+    private static readonly OxyColor s_cudVermillion = OxyColor.FromRgb(0xD5, 0x5E, 0x00);
+    private static readonly OxyColor s_cudPurple = OxyColor.FromRgb(0xCC, 0x79, 0xA7);
+    private static readonly OxyColor s_cudBlack = OxyColor.FromRgb(0x00, 0x00, 0x00);
+
+    private static readonly OxyColor[] s_lightColors = [s_cudOrange, s_cudSkyBlue];
+    private static readonly OxyColor[] s_voltColors = [s_cudPurple, s_cudSkyBlue, s_cudOrange];
+    private static readonly OxyColor[] s_stateColors = [s_cudGreen, s_cudVermillion, s_cudBlue, s_cudPurple];
+
+    /// <summary>The colour of a voltage trace by its role (the first word of its title), else the next spare colour.</summary>
+    private static OxyColor? RoleColor(string title) =>
+        title.StartsWith("sensor", StringComparison.Ordinal) ? s_cudBlue
+        : title.StartsWith("trigger", StringComparison.Ordinal) ? s_cudVermillion
+        : title.StartsWith("timing", StringComparison.Ordinal) ? s_cudGreen
+        : title.StartsWith("switching level", StringComparison.Ordinal) ? s_cudBlack
+        : null;
 
     /// <summary>Build the model for one window of a run. Panels without series are left out.</summary>
     public static PlotModel Build(PlotData data)
@@ -181,16 +187,17 @@ public static class NightPlotBuilder
             case PlotPanel.States:
             {
                 int lanes = Math.Max(1, data.Series.Count(s => s.Panel == PlotPanel.States));
+                // Each lane k draws off at k and on at k + 0.7: one tick label for each (0.7 = LaneOn).
                 y = new LinearAxis
                 {
-                    Title = "on / off",
+                    Title = "state",
                     Minimum = -0.25,
                     Maximum = lanes - 0.05,
-                    MajorStep = 1,
-                    MinorStep = 1,
-                    LabelFormatter = _ => "",
+                    MajorStep = lanes == 1 ? LaneOn : 1,
+                    MinorStep = lanes == 1 ? LaneOn : 1,
+                    LabelFormatter = v => Math.Abs(v - Math.Round(v)) < 1e-6 ? "off" : Math.Abs(v - Math.Floor(v) - LaneOn) < 1e-6 ? "on" : "",
                     MajorGridlineStyle = LineStyle.None,
-                    TickStyle = TickStyle.None,
+                    TickStyle = TickStyle.Outside,
                 };
                 break;
             }
@@ -209,6 +216,9 @@ public static class NightPlotBuilder
         StyleAxis(y);
         return y;
     }
+
+    /// <summary>Height of "on" within a state lane.</summary>
+    private const double LaneOn = 0.7;
 
     private static void StyleAxis(Axis a)
     {
@@ -288,7 +298,7 @@ public static class NightPlotBuilder
                 };
                 double baseLine = lane++;
                 for (int i = a; i < b; i++)
-                    if (double.IsFinite(s.Values[i])) st.Points.Add(new DataPoint(s.Times[i] + shift, baseLine + 0.7 * Math.Clamp(s.Values[i], 0, 1)));
+                    if (double.IsFinite(s.Values[i])) st.Points.Add(new DataPoint(s.Times[i] + shift, baseLine + LaneOn * Math.Clamp(s.Values[i], 0, 1)));
                 model.Series.Add(st);
                 model.Annotations.Add(new TextAnnotation
                 {
@@ -311,10 +321,12 @@ public static class NightPlotBuilder
                 continue;
             }
 
-            LineStyle style = !s.Dashed ? LineStyle.Solid : dashed++ % 2 == 0 ? LineStyle.Dash : LineStyle.DashDot;
-            OxyColor color = s.Dashed ? s_reference
+            // Reference lines that belong to a trace (the sensor at switch-on, the switching level) take its colour.
+            OxyColor? role = RoleColor(s.Title);
+            LineStyle style = !s.Dashed ? LineStyle.Solid : role is not null ? LineStyle.Dash : dashed++ % 2 == 0 ? LineStyle.Dash : LineStyle.DashDot;
+            OxyColor color = s.Dashed ? role ?? s_reference
                 : panel == PlotPanel.Light ? s_lightColors[colour++ % s_lightColors.Length]
-                : s_voltColors[colour++ % s_voltColors.Length];
+                : role ?? s_voltColors[colour++ % s_voltColors.Length];
             var line = new LineSeries
             {
                 Title = s.Title,

@@ -6,8 +6,8 @@ using Spectre.Console;
 namespace NightSim.Cli.Rendering;
 
 /// <summary>
-/// Renders a <see cref="NightReport"/> to the terminal: caution panel (top), table of nights, findings coloured by
-/// severity, one line of solver statistics.
+/// Renders a <see cref="NightReport"/> to the terminal: a verdict line per night, the caution panel, the table of
+/// nights, findings coloured by severity, one line of solver statistics.
 /// </summary>
 public static class TerminalReport
 {
@@ -27,9 +27,14 @@ public static class TerminalReport
     public static void Render(NightReport report, IAnsiConsole console)
     {
         ConfigureWidth(console);
-        if (report.Cautions.Count > 0) console.Write(CautionPanel(report.Cautions));
         console.Write(new Rule("[bold]" + Markup.Escape(report.CircuitName) + "[/]").LeftJustified().RuleStyle("grey"));
         console.MarkupLine("[grey]" + Markup.Escape(Summary(report)) + "[/]");
+        foreach (NightSummary n in report.Nights)
+        {
+            bool ok = ReportText.NightOk(n);
+            console.MarkupLine($"{(ok ? "[green]✓[/]" : "[red]✗[/]")} [bold]{n.Date.ToString("yyyy-MM-dd", s_inv)}[/] {(ok ? "" : "[red]")}{Markup.Escape(ReportText.Verdict(n))}{(ok ? "" : "[/]")}");
+        }
+        if (report.Cautions.Count > 0) console.Write(CautionPanel(report.Cautions));
         console.WriteLine();
         console.Write(NightsTable(report.Nights));
         console.WriteLine();

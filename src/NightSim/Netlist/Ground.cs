@@ -12,4 +12,17 @@ public static class Ground
 
     /// <summary>The node name as the engine sees it: ground becomes <see cref="Node"/>, other names are trimmed.</summary>
     public static string Normalize(string node) => Is(node.Trim()) ? Node : node.Trim();
+
+    /// <summary>True for a name that is probably a misspelt ground: one edit or a swap from "gnd" ("gdn", "gn",
+    /// "gnd1"), "ground"/"earth", or a short name starting with 0 ("0x", "00").</summary>
+    public static bool LooksLike(string node)
+    {
+        string n = node.Trim().ToLowerInvariant();
+        if (Is(n)) return false;
+        if (n is "ground" or "earth" or "gnd_" or "agnd" or "dgnd") return true;
+        if (n.Length <= 3 && n.StartsWith('0')) return true;
+        // One edit from "gnd" ("gn", "gndd", "gnd1") or its letters swapped ("gdn", "ngd"); not "in" or "en".
+        return n.Length is >= 2 and <= 4
+            && (NearestName.Distance(n, Node) <= 1 || string.Concat(n.Order()) == string.Concat(Node.Order()));
+    }
 }

@@ -91,6 +91,8 @@ public static class NetlistLoader
         private readonly List<NetlistError> _warnings = [];
         private readonly List<NodeRef> _nodeRefs = [];
         private readonly HashSet<string> _privateNodes = [];
+        // Nodes named on a misspelt pin: the pin error explains why they lack a connection.
+        private readonly HashSet<string> _nodesOnBadPins = new(StringComparer.Ordinal);
         private readonly Dictionary<string, string> _squeezedIds = new(StringComparer.Ordinal);
 
         public void Error(int line, int column, string path, string? partId, string message, string? hint) =>
@@ -425,6 +427,7 @@ public static class NetlistLoader
                     string? near = NearestName.Find(p.Name, kind.Pins);
                     Error(p.Line, p.Column, pinPath, partId, $"extra pin \"{p.Name}\": a {kind.Name} has pins {pinList}",
                         near is null ? "remove it" : $"did you mean \"{near}\"?");
+                    if (p.Value.Kind == JsonTreeKind.String && p.Value.Text is string bad) _nodesOnBadPins.Add(Ground.Normalize(bad));
                     ok = false;
                     continue;
                 }
@@ -717,12 +720,14 @@ public static class NetlistLoader
             foreach (string node in publicNodes)
             {
                 List<NodeRef> refs = byNode[node];
-                if (refs.Count == 1)
+                if (refs.Count == 1 && !_nodesOnBadPins.Contains(node))
                 {
                     NodeRef r = refs[0];
-                    string? near = NearestName.Find(node, publicNodes.Where(n => n != node));
+                    // A misspelt ground ("0x", "gdn", "GND1") is far more likely than a near miss of another node.
+                    string? near = Ground.LooksLike(node) ? Ground.Node : NearestName.Find(node, publicNodes.Where(n => n != node));
                     Error(r.Line, r.Column, r.Path, r.PartId, $"node \"{node}\" has a single connection",
-                        near is not null ? $"did you mean \"{near}\"? every node needs at least two connections" : "connect it to another part, or check the spelling");
+                        near == Ground.Node ? $"did you mean \"{Ground.Node}\"? ground is written \"{Ground.Node}\""
+                        : near is not null ? $"did you mean \"{near}\"? every node needs at least two connections" : "connect it to another part, or check the spelling");
                 }
             }
             foreach (IGrouping<string, string> same in publicNodes.GroupBy(n => n.ToLowerInvariant()).Where(g => g.Count() > 1))

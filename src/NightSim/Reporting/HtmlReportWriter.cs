@@ -6,7 +6,8 @@ namespace NightSim.Reporting;
 
 /// <summary>
 /// Writes report.html: one self-contained HTML5 page (inline CSS and inline SVG plots, no scripts, no external
-/// files) with the cautions, the findings, the table of nights, the scheduled events, the plots and the solver
+/// files): a one-line verdict per night first, then the cautions, the findings, the table of nights, the light and
+/// noise events (given by time, then drawn from the seed), the plots, the parts with the circuit hash and the solver
 /// statistics. The markup is also well-formed XML (every element closed, attributes quoted, only XML's own
 /// entities), so simple parsers and tests can read it.
 /// </summary>
@@ -28,12 +29,14 @@ public static class HtmlReportWriter
         h.Append("<style>").Append(Css).Append("</style>\n</head>\n<body>\n<main>\n");
 
         AppendHeader(h, report);
+        AppendVerdict(h, report.Nights);
         if (report.Cautions.Count > 0) AppendCautions(h, report.Cautions);
         AppendFindings(h, report.Findings);
         AppendNights(h, report.Nights);
         AppendTargets(h, report);
         AppendEvents(h, report.Events);
         AppendFigures(h, figures);
+        AppendParts(h, report);
         AppendStatistics(h, report.Statistics);
 
         h.Append("<footer>").Append(Esc(report.Tool)).Append(" · report.json holds the same results in machine-readable form")
@@ -53,6 +56,40 @@ public static class HtmlReportWriter
          .Append("</code>");
         if (r.Scenario is not null) h.Append(" · scenario <code>").Append(Esc(r.Scenario)).Append("</code>");
         h.Append("</p>\n</header>\n");
+    }
+
+    private static void AppendVerdict(StringBuilder h, IReadOnlyList<NightSummary> nights)
+    {
+        h.Append("<section id=\"verdict\">\n<ul class=\"verdict\">\n");
+        if (nights.Count == 0) h.Append("<li class=\"night-verdict problem\">No night was simulated.</li>\n");
+        foreach (NightSummary n in nights)
+        {
+            bool ok = ReportText.NightOk(n);
+            h.Append("<li class=\"night-verdict ").Append(ok ? "ok" : "problem").Append("\"><span class=\"mark\">")
+             .Append(ok ? "✓" : "✗").Append("</span> <strong>").Append(n.Date.ToString("yyyy-MM-dd", s_inv)).Append("</strong> ")
+             .Append(Esc(ReportText.Verdict(n))).Append("</li>\n");
+        }
+        h.Append("</ul>\n</section>\n");
+    }
+
+    private static void AppendParts(StringBuilder h, NightReport r)
+    {
+        if (r.Parts.Count == 0) return;
+        h.Append("<section id=\"parts\">\n<h2>Parts</h2>\n<p class=\"hash\">circuit hash <code title=\"")
+         .Append(Esc(r.CircuitHash)).Append("\">").Append(Esc(r.CircuitHash.Length > 16 ? r.CircuitHash[..16] : r.CircuitHash))
+         .Append("</code> (SHA-256 of every part, connection and value; compare two reports with <code>nightsim compare A/report.json B/report.json</code>)</p>\n")
+         .Append("<div class=\"scroll\">\n<table class=\"parts\">\n<thead>\n<tr><th scope=\"col\">Part</th><th scope=\"col\">Kind</th>")
+         .Append("<th scope=\"col\">Connections</th><th scope=\"col\">Values (defaults not listed)</th></tr>\n</thead>\n<tbody>\n");
+        foreach (ReportPart p in r.Parts)
+        {
+            h.Append("<tr>");
+            Cell(h, "", p.Id, "date");
+            Cell(h, "", p.Kind);
+            Cell(h, "", string.Join(", ", p.Connections.Select(c => c.Key + " " + c.Value)));
+            Cell(h, "", string.Join(", ", p.Values.Select(v => v.Key + " " + v.Value)));
+            h.Append("</tr>\n");
+        }
+        h.Append("</tbody>\n</table>\n</div>\n</section>\n");
     }
 
     private static void AppendCautions(StringBuilder h, IReadOnlyList<string> cautions)
@@ -115,7 +152,7 @@ public static class HtmlReportWriter
                     Cell(h, span, n.Date.ToString("yyyy-MM-dd", s_inv), "date");
                     Cell(h, span, ReportText.Clock(n.Sunset));
                     string level = n.SwitchLevelCrossing is null ? "—" : ReportText.Clock(n.SwitchLevelCrossing);
-                    if (n.SwitchLevelLux is double lux) level += " at " + Lux(lux) + " lx";
+                    if (n.SwitchLevelLux is double lux) level += " at " + ReportText.Lux(lux) + " lx";
                     Cell(h, span, level);
                 }
                 if (on is null)
@@ -177,14 +214,23 @@ public static class HtmlReportWriter
 
     private static void AppendEvents(StringBuilder h, IReadOnlyList<ReportEvent> events)
     {
-        h.Append("<section id=\"events\">\n<h2>Scheduled events</h2>\n");
+        h.Append("<section id=\"events\">\n<h2>Light and noise events</h2>\n");
         if (events.Count == 0)
         {
             h.Append("<p class=\"none\">The scenario scheduled no light or noise events.</p>\n</section>\n");
             return;
         }
-        h.Append("<details>\n<summary>").Append(events.Count.ToString(s_inv))
-         .Append(events.Count == 1 ? " event" : " events").Append(" drawn from the seed (show list)</summary>\n")
+        List<ReportEvent> given = events.Where(e => !e.DrawnFromSeed).ToList();
+        List<ReportEvent> drawn = events.Where(e => e.DrawnFromSeed).ToList();
+        if (given.Count > 0) EventTable(h, given, " at the times the scenario gives", open: given.Count <= 12);
+        if (drawn.Count > 0) EventTable(h, drawn, " drawn from the seed", open: false);
+        h.Append("</section>\n");
+    }
+
+    private static void EventTable(StringBuilder h, List<ReportEvent> events, string what, bool open)
+    {
+        h.Append(open ? "<details open=\"open\">\n<summary>" : "<details>\n<summary>").Append(events.Count.ToString(s_inv))
+         .Append(events.Count == 1 ? " event" : " events").Append(what).Append("</summary>\n")
          .Append("<div class=\"scroll\">\n<table class=\"events\">\n<thead>\n<tr><th scope=\"col\">Kind</th><th scope=\"col\">Start</th>")
          .Append("<th scope=\"col\">End</th><th scope=\"col\">Peak</th><th scope=\"col\">Description</th></tr>\n</thead>\n<tbody>\n");
         foreach (ReportEvent e in events)
@@ -197,7 +243,7 @@ public static class HtmlReportWriter
             Cell(h, "", e.Description);
             h.Append("</tr>\n");
         }
-        h.Append("</tbody>\n</table>\n</div>\n</details>\n</section>\n");
+        h.Append("</tbody>\n</table>\n</div>\n</details>\n");
     }
 
     private static void AppendFigures(StringBuilder h, IReadOnlyList<HtmlFigure> figures)
@@ -238,9 +284,6 @@ public static class HtmlReportWriter
 
     private static void Flag(StringBuilder h, string span, bool flag) =>
         Cell(h, span, flag ? "yes" : "no", flag ? "bad" : null);
-
-    private static string Lux(double lux) =>
-        lux >= 100 ? lux.ToString("0", s_inv) : lux >= 1 ? lux.ToString("0.#", s_inv) : lux.ToString("0.###", s_inv);
 
     /// <summary>Escape text for element content and quoted attribute values (XML-safe: no named HTML entities).</summary>
     public static string Esc(string text)
@@ -287,7 +330,16 @@ h1 { font-size: 1.6em; margin: 0 0 4px; color: #17324d; }
 h2 { font-size: 1.2em; margin: 28px 0 10px; padding-bottom: 4px; border-bottom: 2px solid #d8dee6; color: #17324d; }
 header p { margin: 2px 0; color: #4a5866; }
 code { font-family: "DejaVu Sans Mono", ui-monospace, monospace; font-size: 0.92em; background: #eef1f5; padding: 0 4px; border-radius: 3px; }
-.caution { margin-top: 18px; border: 2px solid #c98a00; background: #fff8e1; border-radius: 6px; padding: 4px 18px 8px; }
+ul.verdict { list-style: none; padding: 0; margin: 14px 0 0; }
+.night-verdict { font-size: 1.08em; padding: 7px 12px; margin: 4px 0; border-radius: 5px; border-left: 6px solid; }
+.night-verdict.ok { background: #ecf6ee; border-left-color: #2e7d32; }
+.night-verdict.problem { background: #fdf0ef; border-left-color: #b42318; }
+.night-verdict .mark { font-weight: 700; }
+.night-verdict.ok .mark { color: #2e7d32; }
+.night-verdict.problem .mark { color: #b42318; }
+p.hash { color: #4a5866; }
+table.parts { width: 100%; }
+.caution { margin-top: 14px; border: 2px solid #c98a00; background: #fff8e1; border-radius: 6px; padding: 4px 18px 8px; }
 .caution h2 { border: none; margin: 10px 0 4px; color: #7a4d00; }
 .caution li { margin: 3px 0; }
 .none { color: #4a5866; font-style: italic; }

@@ -29,6 +29,7 @@ public static class JsonReportWriter
         if (report.SiteName is null) w.WriteNull("site"); else w.WriteString("site", report.SiteName);
         if (report.TimeZone is null) w.WriteNull("timeZone"); else w.WriteString("timeZone", report.TimeZone);
         w.WriteNumber("seed", report.Seed);
+        w.WriteString("circuitHash", report.CircuitHash);
 
         WriteTargets(w, report.Targets);
         w.WriteStartArray("nights");
@@ -37,6 +38,7 @@ public static class JsonReportWriter
             NightSummary n = report.Nights[ni];
             w.WriteStartObject();
             w.WriteString("date", n.Date.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture));
+            w.WriteString("verdict", ReportText.Verdict(n));
             WriteTime(w, "sunset", n.Sunset);
             WriteTime(w, "civilDusk", n.CivilDusk);
             WriteTime(w, "civilDawn", n.CivilDawn);
@@ -106,7 +108,24 @@ public static class JsonReportWriter
             w.WriteString("start", ReportText.Iso(e.Start));
             w.WriteString("end", ReportText.Iso(e.End));
             w.WriteNumber("peak", e.Peak);
+            w.WriteBoolean("drawnFromSeed", e.DrawnFromSeed);
             w.WriteString("description", e.Description);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartArray("parts");
+        foreach (ReportPart p in report.Parts)
+        {
+            w.WriteStartObject();
+            w.WriteString("id", p.Id);
+            w.WriteString("kind", p.Kind);
+            w.WriteStartObject("connections");
+            foreach (KeyValuePair<string, string> c in p.Connections) w.WriteString(c.Key, c.Value);
+            w.WriteEndObject();
+            w.WriteStartObject("values");
+            foreach (KeyValuePair<string, string> v in p.Values) w.WriteString(v.Key, v.Value);
+            w.WriteEndObject();
             w.WriteEndObject();
         }
         w.WriteEndArray();

@@ -8,7 +8,11 @@ namespace NightSim.Reporting;
 /// <param name="End">Clock time it ends.</param>
 /// <param name="Peak">Peak illuminance (lux) or amplitude (V or A, see <paramref name="Description"/>).</param>
 /// <param name="Description">Plain words.</param>
-public sealed record ReportEvent(string Kind, DateTimeOffset Start, DateTimeOffset End, double Peak, string Description);
+public sealed record ReportEvent(string Kind, DateTimeOffset Start, DateTimeOffset End, double Peak, string Description)
+{
+    /// <summary>True when its time was drawn from the seed (a rate, a storm); false when the scenario gave it.</summary>
+    public bool DrawnFromSeed { get; init; } = true;
+}
 
 /// <summary>How the solver did.</summary>
 public sealed record ReportStatistics(long AcceptedSteps, long RejectedSteps, long NewtonIterations, long Events, double CpuSeconds);
@@ -27,6 +31,12 @@ public sealed record NightReport
     public IReadOnlyList<Finding> Findings { get; init; } = [];
     public IReadOnlyList<ReportEvent> Events { get; init; } = [];
     public required ReportStatistics Statistics { get; init; }
+
+    /// <summary>The parts as simulated (defaults applied), in netlist order.</summary>
+    public IReadOnlyList<ReportPart> Parts { get; init; } = [];
+
+    /// <summary>SHA-256 (hex) of the parts as simulated: equal hashes mean the same circuit, whatever the comments or layout.</summary>
+    public string CircuitHash { get; init; } = "";
 
     /// <summary>What the design must do (from the scenario), or null when none is stated.</summary>
     public Sky.DesignTargets? Targets { get; init; }

@@ -62,6 +62,46 @@ public static class ReportText
         return night with { LoadOn = shown };
     }
 
+    /// <summary>Illuminance as every table, verdict and plot label shows it: two decimals at most ("1.4", "20.79"),
+    /// the same precision the findings use, and three significant digits below 0.01 lx.</summary>
+    public static string Lux(double lux) =>
+        lux != 0 && Math.Abs(lux) < 0.01 ? lux.ToString("0.###", CultureInfo.InvariantCulture) : lux.ToString("0.##", CultureInfo.InvariantCulture);
+
+    /// <summary>True when the night went as intended: switched on by dusk, no false trigger, no early off, no chatter,
+    /// not missed, not on at sunrise.</summary>
+    public static bool NightOk(NightSummary n) =>
+        !n.Missed && n.FalseTriggers == 0 && n.EarlyOffs == 0 && n.ChatterBursts == 0 && !n.OnAfterSunrise;
+
+    /// <summary>The night in one line: when the load came on and went off, and anything that went wrong. E.g.
+    /// "on 17:05:08 (dusk, 1.4 lx), off 21:00:35 (timer ran out) after 3 h 55 min; no false trigger".</summary>
+    public static string Verdict(NightSummary n)
+    {
+        var parts = new List<string>();
+        LoadInterval? dusk = n.LoadOn.FirstOrDefault(i => i.Expected) ?? n.LoadOn.FirstOrDefault();
+        if (n.Missed || dusk is null)
+        {
+            parts.Add(n.Missed ? "MISSED: it got dark but the lamp never came on" : "the lamp never came on");
+        }
+        else
+        {
+            string level = dusk.Expected && n.SwitchLevelLux is double lux ? $", {Lux(lux)} lx" : "";
+            string on = $"on {Clock(dusk.Start)} ({Cause(dusk.Cause)}{level})";
+            string off = dusk.End is null ? "still on at the end of the run" : $"off {Clock(dusk.End)} ({dusk.EndedBy}) after {Duration(dusk.DurationSeconds)}";
+            parts.Add(on + ", " + off);
+        }
+        int falseTriggers = n.FalseTriggers;
+        if (falseTriggers == 0) parts.Add("no false trigger");
+        else
+        {
+            IEnumerable<string> which = n.LoadOn.Where(i => !i.Expected && i.Folded == 0).Take(3).Select(i => $"{Cause(i.Cause)} {Clock(i.Start)}");
+            parts.Add($"{falseTriggers} FALSE TRIGGER{(falseTriggers == 1 ? "" : "S")} ({string.Join(", ", which)}{(falseTriggers > 3 ? ", …" : "")})");
+        }
+        if (n.EarlyOffs > 0) parts.Add($"cut short {n.EarlyOffs}×");
+        if (n.ChatterBursts > 0) parts.Add($"relay chattered ({n.ChatterBursts} burst{(n.ChatterBursts == 1 ? "" : "s")}, {n.RelayOperations} operations)");
+        if (n.OnAfterSunrise) parts.Add("STILL ON AT SUNRISE");
+        return string.Join("; ", parts);
+    }
+
     /// <summary>Rows of on-intervals a table shows per night before folding the rest.</summary>
     public const int TableRowsPerNight = 12;
 }

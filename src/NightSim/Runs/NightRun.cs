@@ -54,7 +54,8 @@ public static class NightRun
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
         var zoomIndices = nodes.Select(circuit.IndexOf).ToList();
-        var zoom = new ZoomCapture(zoomIndices);
+        // Long enough for a dusk or a timer's end (minutes); faster events use a few seconds of it.
+        var zoom = new ZoomCapture(zoomIndices) { Before = NightTraces.SlowZoomBefore, After = NightTraces.SlowZoomAfter, MergeWithin = NightTraces.FastZoomAfter };
         // A narrow window around each switch-on: the trigger dip and the relay's pull-in take milliseconds.
         var detail = new ZoomCapture(zoomIndices, maxWindows: 6) { Before = 0.02, After = 0.06 };
         bool[] lastOn = new bool[loads.Count];
@@ -175,11 +176,11 @@ public static class NightRun
             foreach (ScheduledLightEvent e in profile.ScheduledEvents)
             {
                 if (e.Kind is "lamp-coupling" or "noise") continue; // noise is listed below with its amplitude
-                events.Add(new ReportEvent(e.Kind, e.Start, e.End, e.PeakLux, e.Description));
+                events.Add(new ReportEvent(e.Kind, e.Start, e.End, e.PeakLux, e.Description) { DrawnFromSeed = e.DrawnFromSeed });
             }
             foreach (NoiseInjection n in profile.NoiseInjections)
             {
-                events.Add(new ReportEvent("noise", n.Instant, facts.Clock(n.Time + n.Width), n.Amplitude, n.Description));
+                events.Add(new ReportEvent("noise", n.Instant, facts.Clock(n.Time + n.Width), n.Amplitude, n.Description) { DrawnFromSeed = profile.IsDrawnFromSeed(n) });
             }
             events.Sort((a, b) => a.Start.CompareTo(b.Start));
         }
@@ -204,6 +205,8 @@ public static class NightRun
             Findings = findings,
             Events = events,
             Statistics = new ReportStatistics(st.AcceptedSteps, st.RejectedSteps, st.NewtonIterations, st.Events, st.CpuSeconds),
+            Parts = ReportPart.List(request.Netlist),
+            CircuitHash = ReportPart.Hash(request.Netlist),
             Cautions = Supply.MainsExposure.Cautions(request.Netlist),
             Targets = targets,
             TargetResults = checks,

@@ -70,16 +70,36 @@ public static class NightTraces
             double from = n.From, to = Math.Min(n.To, facts.Duration);
             if (to <= from) continue;
             var series = new List<PlotSeries>();
+            var markers = new List<PlotMarker>();
             Trace? first = sim.Traces.FirstOrDefault();
             double[] times = first is null ? [] : [.. first.Times.Where(t => t >= from && t <= to)];
-            if (profile is not null) series.Add(LuxSeries(facts, profile, times, from, to));
+            NightSummary? summary = analysis.Nights.FirstOrDefault(s => s.Date == n.Date);
+            AttributedInterval? dusk = analysis.Intervals.FirstOrDefault(i => i.Expected && i.Start >= from && i.Start < to);
+            if (profile is not null)
+            {
+                PlotSeries lux = LuxSeries(facts, profile, times, from, to);
+                series.Add(lux);
+                // The switching level as a line on the lux panel: measured at the dusk switch-on, else the sensor's own.
+                if ((summary?.SwitchLevelLux ?? facts.Sensor?.SwitchingLux) is double level && level > 0)
+                    series.Add(new PlotSeries($"switching level {ReportText.Lux(level)} lx", "lx", PlotPanel.Light, [from, to], [level, level], Dashed: true));
+                // On a missed night, the darkest point with its value: how far the night stayed from the level.
+                if (summary is { Missed: true } && Darkest(lux, n) is (double at, double darkest))
+                    markers.Add(new PlotMarker(at, $"darkest {ReportText.Lux(darkest)} lx", Emphasis: true));
+            }
             foreach ((string node, string title) in Voltages(roles))
             {
-                if (sim.Trace(node) is Trace tr) series.Add(Slice(tr, from, to, title));
+                if (sim.Trace(node) is not Trace tr) continue;
+                series.Add(Slice(tr, from, to, title));
+                // The sensor node's voltage at the dusk switch-on, as a line across its trace.
+                if (dusk is not null && roles.Sensor.Contains(node))
+                {
+                    double v = tr.At(dusk.Start);
+                    series.Add(new PlotSeries($"sensor at switch-on {v:0.00} V", "V", PlotPanel.Voltages, [from, to], [v, v], Dashed: true));
+                }
             }
             AddThirds(series, roles, sim, times);
-            if (facts.LoadTransitions.Count > 0) series.Add(LoadSeries(facts, from, to));
-            var markers = new List<PlotMarker>();
+            // The lamp's lane on every night, also on a night it never switched.
+            if (facts.LoadTransitions.Count > 0 || facts.HasSwitchedLoad) series.Add(LoadSeries(facts, from, to));
             AddSun(markers, facts, n);
             // One marker per false trigger, the first few of each cause only: a chattering night would bury the plot.
             foreach (IGrouping<LoadCause, AttributedInterval> g in analysis.Intervals
@@ -124,14 +144,40 @@ public static class NightTraces
         {
             k++;
             if (w.Times.Count < 2) continue;
-            double from = Math.Max(w.Times[0], w.EventTime - zoom.Before), to = Math.Min(w.Times[^1], w.EventTime + zoom.After);
+            AttributedInterval? iv = analysis.Intervals.FirstOrDefault(i => Math.Abs(i.Start - w.EventTime) < 1e-6 || (i.End is double e && Math.Abs(e - w.EventTime) < 1e-6));
+            bool isOn = iv is not null && Math.Abs(iv.Start - w.EventTime) < 1e-6;
+            // Each zoom sized to its event: dusk, dawn and a timer running out take minutes; a headlight, lightning
+            // or a noise pulse takes seconds. The detail plots keep their own millisecond window.
+            (double before, double after) = prefix == "detail" ? (zoom.Before, zoom.After)
+                : SlowEvent(facts, iv, isOn, w.EventTime) ? (SlowZoomBefore, SlowZoomAfter) : (FastZoomBefore, FastZoomAfter);
+            double from = Math.Max(w.Times[0], w.EventTime - before), to = Math.Min(w.Times[^1], w.EventTime + after);
             double[] times = [.. w.Times];
             var series = new List<PlotSeries>();
-            if (profile is not null) series.Add(LuxSeries(facts, profile, times, from, to));
+            if (profile is not null)
+            {
+                PlotSeries lux = LuxSeries(facts, profile, times, from, to);
+                // A millisecond detail leaves out a light panel that does not change.
+                if (prefix != "detail" || Changes(lux, from, to))
+                {
+                    series.Add(lux);
+                    NightWindow? night = facts.Nights.FirstOrDefault(n => w.EventTime >= n.From && w.EventTime < n.To);
+                    NightSummary? summary = night is null ? null : analysis.Nights.FirstOrDefault(s => s.Date == night.Date);
+                    if ((summary?.SwitchLevelLux ?? facts.Sensor?.SwitchingLux) is double level && level > 0)
+                        series.Add(new PlotSeries($"switching level {ReportText.Lux(level)} lx", "lx", PlotPanel.Light, [from, to], [level, level], Dashed: true));
+                }
+            }
+            AttributedInterval? duskOn = analysis.Intervals.FirstOrDefault(i => i.Expected && i.Start >= w.Times[0] && i.Start <= w.Times[^1]);
             var byNode = nodes.Select((name, i) => (name, i)).ToDictionary(x => x.name, x => x.i, StringComparer.Ordinal);
             foreach ((string node, string title) in Voltages(roles))
             {
-                if (byNode.TryGetValue(node, out int i)) series.Add(new PlotSeries(title, "V", PlotPanel.Voltages, times, [.. w.Columns[i]]));
+                if (!byNode.TryGetValue(node, out int i)) continue;
+                double[] values = [.. w.Columns[i]];
+                series.Add(new PlotSeries(title, "V", PlotPanel.Voltages, times, values));
+                if (duskOn is not null && roles.Sensor.Contains(node) && prefix != "detail")
+                {
+                    int at = Math.Clamp(Array.BinarySearch(times, duskOn.Start) is int b && b >= 0 ? b : ~b, 0, times.Length - 1);
+                    series.Add(new PlotSeries($"sensor at switch-on {values[at]:0.00} V", "V", PlotPanel.Voltages, [from, to], [values[at], values[at]], Dashed: true));
+                }
             }
             if (roles.Supply is string vcc && byNode.TryGetValue(vcc, out int si) && roles.Timing is not null)
             {
@@ -140,9 +186,8 @@ public static class NightTraces
                 series.Add(new PlotSeries("2/3 supply", "V", PlotPanel.Voltages, times, [.. supply.Select(v => 2 * v / 3)], Dashed: true));
             }
             if (facts.LoadTransitions.Count > 0) series.Add(LoadSeries(facts, from, to));
-            AttributedInterval? iv = analysis.Intervals.FirstOrDefault(i => Math.Abs(i.Start - w.EventTime) < 1e-6 || (i.End is double e && Math.Abs(e - w.EventTime) < 1e-6));
             string what = iv is null ? w.Labels[0].Label
-                : Math.Abs(iv.Start - w.EventTime) < 1e-6 ? $"lamp on ({ReportText.Cause(iv.Cause)})" : $"lamp off ({iv.EndedBy})";
+                : isOn ? $"lamp on ({ReportText.Cause(iv.Cause)})" : $"lamp off ({iv.EndedBy})";
             plots.Add(new PlotData
             {
                 Title = $"{request.Netlist.Name}: {what} at {ReportText.Clock(facts.Clock(w.EventTime))}" + (prefix == "detail" ? " (detail)" : ""),
@@ -155,6 +200,48 @@ public static class NightTraces
                 FileStem = $"{prefix}-{k:00}-{Slug(what)}",
             });
         }
+    }
+
+    /// <summary>Seconds a zoom shows before and after a slow event (dusk, dawn, a timer running out).</summary>
+    public const double SlowZoomBefore = 600, SlowZoomAfter = 120;
+
+    /// <summary>Seconds a zoom shows before and after a fast event (a headlight, lightning, a noise pulse).</summary>
+    public const double FastZoomBefore = 8, FastZoomAfter = 4;
+
+    /// <summary>True when the switching event unfolds over minutes: a switch-on by dusk, or a switch-off by the timer
+    /// or by light that changed by less than 5 % in the last <see cref="FastZoomBefore"/> seconds (dawn).</summary>
+    private static bool SlowEvent(RunFacts facts, AttributedInterval? iv, bool isOn, double t)
+    {
+        if (iv is null) return false;
+        if (isOn) return iv.Cause == LoadCause.Dusk;
+        if (iv.EndedByTimer) return true;
+        double now = SensorLux(facts, t - 1e-3), earlier = SensorLux(facts, t - FastZoomBefore);
+        return Math.Abs(now - earlier) <= 0.05 * Math.Max(Math.Abs(now), Math.Abs(earlier));
+    }
+
+    /// <summary>True when the series moves by more than 1 % of its largest value inside the window.</summary>
+    private static bool Changes(PlotSeries s, double from, double to)
+    {
+        double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
+        for (int i = 0; i < s.Times.Length; i++)
+        {
+            if (s.Times[i] < from || s.Times[i] > to) continue;
+            lo = Math.Min(lo, s.Values[i]);
+            hi = Math.Max(hi, s.Values[i]);
+        }
+        return hi > lo && hi - lo > 0.01 * Math.Max(Math.Abs(hi), Math.Abs(lo));
+    }
+
+    /// <summary>The darkest point of the night's lux series (noon to noon), first one if several.</summary>
+    private static (double At, double Lux)? Darkest(PlotSeries lux, NightWindow n)
+    {
+        int best = -1;
+        for (int i = 0; i < lux.Times.Length; i++)
+        {
+            if (lux.Times[i] < n.From || lux.Times[i] > n.To) continue;
+            if (best < 0 || lux.Values[i] < lux.Values[best]) best = i;
+        }
+        return best < 0 ? null : (lux.Times[best], lux.Values[best]);
     }
 
     private static IEnumerable<(string Node, string Title)> Voltages(NodeRoles roles)

@@ -37,6 +37,10 @@ public sealed class ZoomCapture
     /// <summary>Seconds kept after the event.</summary>
     public double After { get; init; } = 4.0;
 
+    /// <summary>A further event within this many seconds of the open window's event joins that window; a later one
+    /// closes it and opens its own. Default: <see cref="After"/>.</summary>
+    public double? MergeWithin { get; init; }
+
     /// <summary>Events seen, captured or not.</summary>
     public int EventsSeen { get; private set; }
 
@@ -66,8 +70,12 @@ public sealed class ZoomCapture
         EventsSeen++;
         if (_open is not null)
         {
-            _open.Labels.Add((time, label));
-            return;
+            if (time - _open.EventTime <= (MergeWithin ?? After))
+            {
+                _open.Labels.Add((time, label));
+                return;
+            }
+            _open = null;
         }
         if (_windows.Count >= _maxWindows) return;
         var w = new Window(time, label, _width);

@@ -110,6 +110,7 @@ public sealed class LightProfile : ILightSignal
 
         // Draw every random event now: one stream per definition, named kind#ordinal.
         var sink = new EventSink();
+        var given = _given;
         var ordinals = new Dictionary<string, int>(StringComparer.Ordinal);
         var definitions = new List<IEventDefinition>(scenario.Events);
         if (w.Clouds is not null) definitions.Add(w.Clouds);
@@ -117,7 +118,13 @@ public sealed class LightProfile : ILightSignal
         {
             int k = ordinals.GetValueOrDefault(def.Kind);
             ordinals[def.Kind] = k + 1;
+            int lights = sink.LightEvents.Count, pulses = sink.NoiseInjections.Count;
             def.Generate(Timeline, DeterministicRandom.ForStream(scenario.Seed, LightEventCatalog.StreamName(def.Kind, k)), sink);
+            if (!def.DrawnFromSeed)
+            {
+                for (int i = lights; i < sink.LightEvents.Count; i++) given.Add(sink.LightEvents[i]);
+                for (int i = pulses; i < sink.NoiseInjections.Count; i++) given.Add(sink.NoiseInjections[i]);
+            }
         }
         LightEvents = [.. sink.LightEvents.OrderBy(e => e.Start).ThenBy(e => e.Kind, StringComparer.Ordinal)];
         LampCouplings = sink.LampCouplings;
@@ -156,9 +163,9 @@ public sealed class LightProfile : ILightSignal
 
         var scheduled = new List<ScheduledLightEvent>();
         foreach (ILightEvent e in LightEvents)
-            scheduled.Add(new ScheduledLightEvent(e.Kind, Timeline.Instant(e.Start), Timeline.Instant(e.End), e.Start, e.End, e.PeakLux, e.Channel, e.Description));
+            scheduled.Add(new ScheduledLightEvent(e.Kind, Timeline.Instant(e.Start), Timeline.Instant(e.End), e.Start, e.End, e.PeakLux, e.Channel, e.Description, !given.Contains(e)));
         foreach (NoiseInjection p in NoiseInjections)
-            scheduled.Add(new ScheduledLightEvent("noise", p.Instant, Timeline.Instant(p.Time + p.Width), p.Time, p.Time + p.Width, 0.0, p.Node, p.Description));
+            scheduled.Add(new ScheduledLightEvent("noise", p.Instant, Timeline.Instant(p.Time + p.Width), p.Time, p.Time + p.Width, 0.0, p.Node, p.Description, !given.Contains(p)));
         ScheduledEvents = [.. scheduled.OrderBy(s => s.StartSeconds).ThenBy(s => s.Kind, StringComparer.Ordinal)];
 
         SolarEvents = [.. Enumerable.Range(0, scenario.Nights).Select(k => Twilight.ForNight(site, scenario.Start.AddDays(k)))];
@@ -231,6 +238,12 @@ public sealed class LightProfile : ILightSignal
     public IReadOnlyList<ILightEvent> LightEvents { get; }
     /// <summary>Everything drawn for the run, for reports: light events and noise pulses, by start.</summary>
     public IReadOnlyList<ScheduledLightEvent> ScheduledEvents { get; }
+
+    // Light events and noise pulses at times the scenario gives (the rest were drawn from the seed).
+    private readonly HashSet<object> _given = new(ReferenceEqualityComparer.Instance);
+
+    /// <summary>True when this noise pulse's time was drawn from the seed; false when the scenario gave it.</summary>
+    public bool IsDrawnFromSeed(NoiseInjection pulse) => !_given.Contains(pulse);
     /// <summary>Lamp self-illumination couplings, for the circuit run to apply.</summary>
     public IReadOnlyList<LampCoupling> LampCouplings { get; }
     /// <summary>Noise pulses with concrete times, for the circuit run to apply.</summary>

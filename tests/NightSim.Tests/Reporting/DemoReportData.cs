@@ -189,10 +189,16 @@ internal static class DemoReportData
         ],
         Events =
         [
-            new ReportEvent("headlights", At(HeadlightAt), At(HeadlightAt + HeadlightSeconds), 40, "car turning into the lane, 40 lx at the sensor"),
+            new ReportEvent("headlights", At(HeadlightAt), At(HeadlightAt + HeadlightSeconds), 40, "car turning into the lane, 40 lx at the sensor") { DrawnFromSeed = false },
             new ReportEvent("cloud", At(4 * 3600), At(4 * 3600 + 1800), 0.4, "cloud bank, light × 0.4 <dimmer> & 'grey'"),
         ],
         Statistics = new ReportStatistics(184_220, 1_031, 402_118, 12, 1.84),
         Cautions = ReportText.MainsCautions,
+        Parts = ReportPart.List(s_netlist),
+        CircuitHash = ReportPart.Hash(s_netlist),
     };
+
+    /// <summary>A real demo netlist for the parts table (its parts, not its results).</summary>
+    private static readonly NightSim.Netlist.NetlistDefinition s_netlist =
+        NightSim.Netlist.NetlistLoader.Read(Path.Combine(RepoPaths.Netlists, "garden-path.json")).Definition!;
 }

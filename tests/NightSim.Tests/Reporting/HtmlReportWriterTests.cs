@@ -73,16 +73,50 @@ public sealed class HtmlReportWriterTests
         root.Descendants(name).Where(e => ((string?)e.Attribute("class"))?.Split(' ').Contains(cls) == true);
 
     [Fact]
-    public void CautionBoxComesFirstAndTextIsEscaped()
+    public void VerdictComesFirstThenTheCautionBoxAndTextIsEscaped()
     {
         XDocument d = Parse(Page());
         XElement main = d.Root!.Element("body")!.Element("main")!;
         List<XElement> sections = main.Elements("section").ToList();
-        Assert.Equal("cautions", (string?)sections[0].Attribute("id"));
-        Assert.Equal(ReportText.MainsCautions.Count, sections[0].Descendants("li").Count());
+        // One line per night: on at, off at, and the headlight's false trigger of the invented night.
+        Assert.Equal("verdict", (string?)sections[0].Attribute("id"));
+        Assert.Equal(DemoReportData.Report().Nights.Count, sections[0].Descendants("li").Count());
+        XElement verdict = sections[0].Descendants("li").First();
+        Assert.Contains("on 17:12:00", verdict.Value, StringComparison.Ordinal);
+        Assert.Contains("1 FALSE TRIGGER (headlight 23:41:07)", verdict.Value, StringComparison.Ordinal);
+        Assert.Contains("problem", (string?)verdict.Attribute("class"), StringComparison.Ordinal);
+        Assert.Equal("cautions", (string?)sections[1].Attribute("id"));
+        Assert.Equal(ReportText.MainsCautions.Count, sections[1].Descendants("li").Count());
+        Assert.Equal("findings", (string?)sections[2].Attribute("id"));
         // Markup characters in names come back as the same text after parsing.
         Assert.Equal("Demo night light <4 h timer> & relay", main.Element("header")!.Element("h1")!.Value);
-        Assert.Contains("<dimmer> & 'grey'", d.Descendants("details").Single().Value, StringComparison.Ordinal);
+        Assert.Contains("<dimmer> & 'grey'", d.Descendants("details").Last().Value, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void EventsGivenByTimeAreListedApartFromThoseDrawnFromTheSeed()
+    {
+        XDocument d = Parse(Page());
+        List<XElement> details = d.Descendants("section").Single(s => (string?)s.Attribute("id") == "events").Elements("details").ToList();
+        Assert.Equal(2, details.Count);
+        Assert.StartsWith("1 event at the times the scenario gives", details[0].Element("summary")!.Value, StringComparison.Ordinal);
+        Assert.Contains("headlights", details[0].Value, StringComparison.Ordinal);
+        Assert.StartsWith("1 event drawn from the seed", details[1].Element("summary")!.Value, StringComparison.Ordinal);
+        Assert.Contains("cloud", details[1].Value, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void PartsTableListsEveryPartWithTheCircuitHash()
+    {
+        XDocument d = Parse(Page());
+        XElement parts = d.Descendants("section").Single(s => (string?)s.Attribute("id") == "parts");
+        List<XElement> rows = parts.Descendants("tbody").Single().Elements("tr").ToList();
+        Assert.Equal(DemoReportData.Report().Parts.Count, rows.Count);
+        // garden-path.json: RTIM is 3.3 MΩ from vcc to tc.
+        XElement rtim = rows.Single(r => r.Elements("td").First().Value == "RTIM");
+        Assert.Equal("a vcc, b tc", rtim.Elements("td").ElementAt(2).Value);
+        Assert.Equal("value 3.3 MΩ", rtim.Elements("td").ElementAt(3).Value);
+        Assert.Contains(DemoReportData.Report().CircuitHash[..16], parts.Element("p")!.Value, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -17,4 +17,6 @@ public interface IEventDefinition
     string? Channel { get; }
     /// <summary>Draws all concrete events over the timeline from <paramref name="random"/> (this definition's own stream).</summary>
     void Generate(ScenarioTimeline timeline, DeterministicRandom random, EventSink sink);
+    /// <summary>True when the events' times come from the seed (a rate, a storm); false when the scenario gives them.</summary>
+    bool DrawnFromSeed => true;
 }

@@ -93,6 +93,8 @@ public sealed class HeadlightDefinition : IEventDefinition
         return new HeadlightDefinition(timing, peak.Value, seconds, rise, fall, channel);
     }
 
+    public bool DrawnFromSeed => Timing.Times is null;
+
     public void Generate(ScenarioTimeline timeline, DeterministicRandom random, EventSink sink)
     {
         foreach (double t in Timing.Draw(timeline, random))

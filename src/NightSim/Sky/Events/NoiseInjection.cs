@@ -61,6 +61,8 @@ public sealed class NoiseDefinition : IEventDefinition
         return new NoiseDefinition(node, timing, amp.Value, width.Value, q);
     }
 
+    public bool DrawnFromSeed => Timing.Times is null;
+
     public void Generate(ScenarioTimeline timeline, DeterministicRandom random, EventSink sink)
     {
         foreach (double t in Timing.Draw(timeline, random))

@@ -9,5 +9,6 @@ namespace NightSim.Sky.Events;
 /// <param name="PeakLux">Peak lux at the sensor (0 for events that scale the sky or are not light).</param>
 /// <param name="Channel">Channel name, node or part the event acts on.</param>
 /// <param name="Description">Readable summary.</param>
+/// <param name="DrawnFromSeed">True when its time was drawn from the seed; false when the scenario gave it.</param>
 public sealed record ScheduledLightEvent(string Kind, DateTimeOffset Start, DateTimeOffset End, double StartSeconds,
-    double EndSeconds, double PeakLux, string Channel, string Description);
+    double EndSeconds, double PeakLux, string Channel, string Description, bool DrawnFromSeed = true);

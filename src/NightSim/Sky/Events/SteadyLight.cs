@@ -54,6 +54,8 @@ public sealed class SteadyLightDefinition : IEventDefinition
         return new SteadyLightDefinition(on.Value, off.Value, lux.Value, channel);
     }
 
+    public bool DrawnFromSeed => false;
+
     public void Generate(ScenarioTimeline timeline, DeterministicRandom random, EventSink sink)
     {
         for (int night = 0; night < timeline.Nights; night++)
