@@ -20,6 +20,7 @@ internal static class Program
         root.Subcommands.Add(SweepCommand.Create());
         root.Subcommands.Add(SpreadCommand.Create());
         root.Subcommands.Add(YearCommand.Create());
+        root.Subcommands.Add(TuneCommand.Create());
         root.Subcommands.Add(MergeCommand.Create());
 
         return root;
