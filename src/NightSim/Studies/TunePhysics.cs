@@ -1,6 +1,7 @@
 using NightSim.Analysis;
 using NightSim.Devices;
 using NightSim.Devices.Roles;
+using NightSim.Mna;
 using NightSim.Netlist;
 using NightSim.Runs;
 using NightSim.Sky;
@@ -16,7 +17,8 @@ namespace NightSim.Studies;
 /// <item>on-time: the timing network reduced to R, C and its drains (<see cref="TimingNetwork"/>), then the 555
 /// monostable relation t = R·C·ln(V∞/(V∞ − 2V/3)) with the drains (ln 3·R·C without them);</item>
 /// <item>switching level: the light at which the circuit at rest switches (<see cref="SwitchingLevel"/>, operating
-/// points bisected in lux);</item>
+/// points bisected in lux), or where the sensor feeds a comparator, the light at which its inputs cross the edge of
+/// its hysteresis band;</item>
 /// <item>the trigger pin's RC against a pulse: a current pulse I of width w into the filter capacitor C behind the
 /// series resistor R dips the pin by I·R·(1 − e^(−w/RC)) (first-order RC step response); the dusk edge, a supply-high
 /// step through the coupling capacitor C₁ with its pull-up R₁ (τ₁ = R₁C₁), reaches the pin through the RS·CF
@@ -60,7 +62,7 @@ public static class TunePhysics
             return quantity switch
             {
                 OnTime => TimerOf(devices) is TimerFacts f && double.IsFinite(f.ClosedFormWidth) ? f.ClosedFormWidth : null,
-                SwitchLux => SwitchingLevel.Find(net, TransientOptions.Default),
+                SwitchLux => SwitchingLevel.Find(net, TransientOptions.Default) ?? ComparatorSwitchLevel(net, devices),
                 NoiseLow => Trigger(devices) is TriggerNetwork t ? NoiseLowest(t, scenario) : null,
                 DuskLow => Trigger(devices) is TriggerNetwork t ? DuskLowest(t) : null,
                 _ => null,
@@ -118,7 +120,8 @@ public static class TunePhysics
     /// <param name="Series">Resistance from the pin to the coupling node, Ω.</param>
     /// <param name="PullUp">Pull-up at the coupling node, Ω, or null.</param>
     /// <param name="Coupling">Coupling capacitance into the coupling node, F, or null.</param>
-    public sealed record TriggerNetwork(double Supply, double TriggerFraction, string Node, double Filter, double Series, double? PullUp, double? Coupling);
+    /// <param name="Drive">The node that drives the coupling capacitor (the sensor stage's output), or null.</param>
+    public sealed record TriggerNetwork(double Supply, double TriggerFraction, string Node, double Filter, double Series, double? PullUp, double? Coupling, string? Drive = null);
 
     /// <summary>Finds the trigger network, or null when the pin is not fed through a resistor from a held node.</summary>
     public static TriggerNetwork? Trigger(IReadOnlyList<Device> devices)
@@ -131,15 +134,20 @@ public static class TunePhysics
         if (series.Count != 1) return null;
         string line = Pair(series[0], pin)!;
         double? pull = null, coupling = null;
+        string? drive = null;
         foreach (Resistor r in devices.OfType<Resistor>())
         {
             if (r != series[0] && Pair(r, line) is string o && TimingNetwork.FixedVoltage(devices, o) is double v && v > 0) pull = r.Resistance;
         }
         foreach (Capacitor c in devices.OfType<Capacitor>())
         {
-            if (c.Nodes.Count >= 2 && Pair(c, line) is string o && !Ground.Is(o) && o != timer.Supply && o != pin) coupling = c.Capacitance;
+            if (c.Nodes.Count >= 2 && Pair(c, line) is string o && !Ground.Is(o) && o != timer.Supply && o != pin)
+            {
+                coupling = c.Capacitance;
+                drive = o;
+            }
         }
-        return new TriggerNetwork(vs, timer.TriggerFraction, pin, filter, series[0].Resistance, pull, coupling);
+        return new TriggerNetwork(vs, timer.TriggerFraction, pin, filter, series[0].Resistance, pull, coupling, drive);
     }
 
     /// <summary>Lowest trigger-pin voltage during the scenario's current pulses at the pin, V; null without such pulses.
@@ -172,6 +180,40 @@ public static class TunePhysics
         double r = tau2 / tau1;
         if (Math.Abs(r - 1) < 1e-9) return Math.Exp(-1);
         return Math.Pow(r, r / (1 - r));
+    }
+
+    /// <summary>
+    /// The switching level where the sensor feeds a comparator (whose output state an operating point does not
+    /// change): operating points of the circuit at constant light, bisected in log lux for the light at which the
+    /// comparator's input difference, going from bright to dark, reaches the far edge of its hysteresis band
+    /// (offset ± hysteresis/2); lux, or null without such a comparator or when it does not cross between 1 mlx and 10 klx.
+    /// </summary>
+    public static double? ComparatorSwitchLevel(NetlistDefinition net, IReadOnlyList<Device> devices)
+    {
+        var sensorNodes = devices.Select(d => d.Role).OfType<LightSensorRole>().SelectMany(r => r.Nodes).Where(n => !Ground.Is(n)).ToHashSet();
+        if (devices.OfType<Comparator>().FirstOrDefault(c => c.Nodes.Count >= 2 && (sensorNodes.Contains(c.Nodes[0]) || sensorNodes.Contains(c.Nodes[1])))
+            is not Comparator comp) return null;
+        string plus = comp.Nodes[0], minus = comp.Nodes[1];
+        double? Difference(double lux)
+        {
+            Circuit c = Circuit.FromDevices(net.Name, NightRun.CreateDevices(net));
+            if (!TransientSolver.TrySolveOperatingPoint(c, TransientOptions.Default with { ConstantLux = lux }, out double[]? x) || x is null) return null;
+            double V(string n) => Ground.Is(n) ? 0 : c.IndexOf(n) is int i && i >= 0 ? x[i] : double.NaN;
+            return V(plus) - V(minus) - comp.Settings.Offset;
+        }
+        const double darkest = 1e-3, brightest = 1e4;
+        if (Difference(darkest) is not double dark || Difference(brightest) is not double bright) return null;
+        double edge = (dark > bright ? 0.5 : -0.5) * comp.Settings.Hysteresis;
+        if (!((dark - edge) * (bright - edge) < 0)) return null;
+        double lo = Math.Log(darkest), hi = Math.Log(brightest);
+        for (int k = 0; k < 40 && hi - lo > 1e-4; k++)
+        {
+            double mid = 0.5 * (lo + hi);
+            if (Difference(Math.Exp(mid)) is not double v) return null;
+            // Still on the dark side of the edge: the level is brighter.
+            if ((v - edge) * (dark - edge) > 0) lo = mid; else hi = mid;
+        }
+        return Math.Exp(0.5 * (lo + hi));
     }
 
     private static string? Pair(Device d, string node)

@@ -28,7 +28,7 @@ public sealed record TuneResult(int Candidate, IReadOnlyList<KeyValuePair<string
 /// <summary>
 /// The outcome of a tune: every candidate with its closed-form predictions, the confirmed ones with their margins per
 /// target and the night and corner that bound each, ranked (passing first, then by least margin, then by the
-/// predicted margin); the best, or the closest miss with advice. Writes tune.json (docs/tune.schema.json) and the page.
+/// predicted margin when the least margins agree within 0.1 %); the best, or the closest miss with advice. Writes tune.json (docs/tune.schema.json) and the page.
 /// </summary>
 public sealed class TuneReport
 {
@@ -53,7 +53,7 @@ public sealed class TuneReport
                 }).ToList();
             return new TuneResult(ci, byCandidate[ci].Values, bounds, mine.Count, perCandidate, mine.FirstOrDefault(r => r.Failure is not null)?.Failure, byCandidate[ci].PredictedMargin);
         }).Where(r => r.Runs > 0)
-          .OrderByDescending(r => r.Pass).ThenByDescending(r => r.WorstMargin).ThenByDescending(r => r.PredictedMargin ?? double.NegativeInfinity).ThenBy(r => r.Candidate)
+          .OrderByDescending(r => r.Pass).ThenByDescending(r => Math.Round(r.WorstMargin, 3)).ThenByDescending(r => r.PredictedMargin ?? double.NegativeInfinity).ThenBy(r => r.Candidate)
           .ToList();
         Advice = Best is TuneResult b && !b.Pass ? study.Advice(b.Candidate) : [];
     }

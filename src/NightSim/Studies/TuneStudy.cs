@@ -171,15 +171,17 @@ public sealed class TuneStudy
         return new TuneCandidate(index, values, PredictValues(values));
     }
 
-    /// <summary>True when some closed-form quantity differs between the axis' first and last value.</summary>
+    /// <summary>True when some closed-form quantity differs between values of the axis (up to five, spread over it).</summary>
     private bool Moves(SweepAxis a)
     {
+        int n = a.Values.Count;
+        var probe = Enumerable.Range(0, Math.Min(5, n)).Select(i => a.Values[n == 1 ? 0 : i * (n - 1) / Math.Max(1, Math.Min(5, n) - 1)]).Distinct().ToList();
         foreach (string q in Quantities)
         {
-            double? lo = TunePhysics.Evaluate(ToleranceModel.Apply(_base.Netlist, [new(a.Key, a.Values[0])]), Scenario, q);
-            double? hi = TunePhysics.Evaluate(ToleranceModel.Apply(_base.Netlist, [new(a.Key, a.Values[^1])]), Scenario, q);
-            if (lo is null ^ hi is null) return true;
-            if (lo is double x && hi is double y && Math.Abs(x - y) > 1e-6 * Math.Max(Math.Abs(x), Math.Abs(y))) return true;
+            var seen = probe.Select(v => TunePhysics.Evaluate(ToleranceModel.Apply(_base.Netlist, [new(a.Key, v)]), Scenario, q)).ToList();
+            var known = seen.OfType<double>().ToList();
+            if (known.Count > 0 && known.Count < seen.Count) return true;
+            if (known.Count > 1 && known.Max() - known.Min() > 1e-6 * known.Max(Math.Abs)) return true;
         }
         return false;
     }
@@ -261,7 +263,8 @@ public sealed class TuneStudy
             if (lo is double a && hi is double b && p.High - p.Low > (b - a) * scale)
             {
                 string Fmt(double x) => unit == "s" ? ReportingDuration(x) : x.ToString("0.###", CultureInfo.InvariantCulture) + " " + unit;
-                advice.Add($"the tolerances alone spread the {p.Quantity} from {Fmt(p.Low)} to {Fmt(p.High)}, wider than the target's {Fmt(a)} to {Fmt(b)}: no value of the varied parts can meet it; choose closer-tolerance parts (resistors 1 %, a film timing capacitor) or widen the target.");
+                var bands = Corners.Where(c => c.Label.StartsWith(p.Quantity, StringComparison.Ordinal)).SelectMany(c => c.Ends.Select(e => e.Key)).Distinct().ToList();
+                advice.Add($"the tolerances alone spread the {p.Quantity} from {Fmt(p.Low)} to {Fmt(p.High)} across the corners, wider than the target's {Fmt(a)} to {Fmt(b)}: no value of the varied parts meets it at every corner. Choose closer-tolerance parts for the bands that move it ({string.Join(", ", bands.Take(8))}), adjust a trimmer on the built circuit, or widen the target.");
             }
         }
         if (advice.Count == 0) advice.Add("no varied part is at the end of its range; vary another part, or relax the target it misses.");
