@@ -89,8 +89,7 @@ internal static class CheckCommand
         foreach (NetlistError w in result.Warnings) error.WriteLine(w.ToString());
         if (problems.Count > 0)
         {
-            foreach (string p in problems) error.WriteLine(p);
-            error.WriteLine(problems.Count == 1 ? "1 error." : $"{problems.Count} errors.");
+            CliErrors.WriteProblems(problems, error);
             return CliErrors.InvalidInput;
         }
 
@@ -102,7 +101,8 @@ internal static class CheckCommand
             .Select(g => $"{g.Key} {g.Count()}");
         output.WriteLine($"  parts:    {def.Parts.Count} ({string.Join(", ", byKind)})");
         List<string> nodes = def.Parts.SelectMany(p => p.Pins.Values).Where(n => !Ground.Is(n)).Distinct().Order(StringComparer.Ordinal).ToList();
-        output.WriteLine($"  nodes:    {nodes.Count} + ground ({string.Join(", ", nodes)})");
+        string shown = string.Join(", ", nodes.Take(20)) + (nodes.Count > 20 ? $", … and {nodes.Count - 20} more" : "");
+        output.WriteLine($"  nodes:    {nodes.Count} + ground ({shown})");
         output.WriteLine(result.Warnings.Count == 0 ? "  warnings: none" : $"  warnings: {result.Warnings.Count} (above)");
         if (loadedScenario is not null)
         {
@@ -120,6 +120,8 @@ internal static class CheckCommand
         try
         {
             byte[] bytes = File.ReadAllBytes(path);
+            if (NightSim.Text.Utf8Check.Problem(bytes) is { } bad)
+                return [$"{path}:{bad.Line}:{bad.Column}: error at $: {bad.Message}. hint: {bad.Hint}"];
             int start = bytes.AsSpan().StartsWith((ReadOnlySpan<byte>)[0xEF, 0xBB, 0xBF]) ? 3 : 0;
             using JsonDocument _ = JsonDocument.Parse(bytes.AsMemory(start), new JsonDocumentOptions
             {

@@ -37,7 +37,7 @@ internal static class MergeCommand
                 throw new StudyFileException([$"{header.Netlist}: error: the study's netlist is not here. hint: run merge from the folder the shards were run from"]);
             NetlistDefinition net = NetlistLoader.Load(header.Netlist);
             string fmt = pr.GetValue(format)!;
-            return header.Kind switch
+            return OutputException.Guard(dir, () => header.Kind switch
             {
                 "spread" => SpreadCommand.Finish(header, net, items.Select(SpreadRun.Read).ToList(), true, dir, fmt, output, error),
                 "sweep" => SweepCommand.Finish(header, net, SweepCommand.Axes(net, header.Settings.Where(k => k.Key.StartsWith("vary", StringComparison.Ordinal)).Select(k => k.Value)),
@@ -45,7 +45,7 @@ internal static class MergeCommand
                 "year" => YearCommand.Finish(header, net, items.Select(YearNight.Read).ToList(), true, dir, fmt, output, error),
                 "tune" => TuneCommand.Merge(header, items, dir, fmt, output, error),
                 _ => throw new StudyFileException([$"{files[0]}: error: unknown study kind '{header.Kind}'"]),
-            };
+            });
         }));
         return command;
     }

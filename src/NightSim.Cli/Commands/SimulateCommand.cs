@@ -3,16 +3,19 @@ using System.Globalization;
 using NightSim.Netlist;
 using NightSim.Reporting;
 using NightSim.Runs;
+
 using NightSim.Results;
 using NightSim.Transient;
 using NightSim.Units;
 using NightSim.Cli.Rendering;
+using NightSim.Devices;
+using NightSim.Devices.Light;
 using NightSim.Mna;
 
 namespace NightSim.Cli.Commands;
 
-/// <summary>`nightsim simulate NETLIST --for DURATION [--lux VALUE] [--out DIR] [--nodes a,b]`: a plain transient run
-/// from power-up; writes DIR/trace.csv and DIR/statistics.json.</summary>
+/// <summary>`nightsim simulate NETLIST --for DURATION [--lux VALUE] [--start ramp|operating-point] [--out DIR] [--nodes a,b]`:
+/// a plain transient run from power-up (or the operating point); writes DIR/trace.csv and DIR/statistics.json.</summary>
 internal static class SimulateCommand
 {
     public static Command Create()
@@ -28,30 +31,43 @@ internal static class SimulateCommand
             Description = "Scenario JSON (site, dates, weather, light events). Default: <netlist>.scenario.json beside the netlist, if present.",
             HelpName = "FILE",
         };
-        var nights = new Option<int?>("--nights", "-n") { Description = "Number of nights (overrides the scenario).", HelpName = "N" };
+        var nights = CliNumbers.Whole<int?>("--nights", "Number of nights, 1 to 3660 (overrides the scenario).", 1, InputLimits.MaxNights, "nights", "-n");
+        nights.HelpName = "N";
         var format = new Option<string>("--format") { Description = "Terminal output: text (table of nights) or json (report.json).", DefaultValueFactory = _ => "text" };
         format.AcceptOnlyFromAmong("text", "json");
         var noProgress = new Option<bool>("--no-progress") { Description = "No progress bar or progress lines." };
         var failOn = new Option<string?>("--fail-on") { Description = "Exit with code 4 when a finding is at or above this severity.", HelpName = "warning|error" };
         failOn.AcceptOnlyFromAmong("warning", "error");
         var noPlots = new Option<bool>("--no-plots") { Description = "Skip the SVG/PNG plots (faster; report.html then has no figures)." };
-        var lux = new Option<string?>("--lux") { Description = "Constant illuminance on every light sensor, lux (default 0).", HelpName = "VALUE" };
+        var lux = new Option<string?>("--lux")
+        {
+            Description = "Constant illuminance, lux (default 0), for --for runs: applies to every light sensor without its own lux or lux points; a sensor with its own keeps them (a warning names it).",
+            HelpName = "VALUE",
+        };
         var outDir = new Option<DirectoryInfo>("--out")
         {
             Description = "Output folder for trace.csv and statistics.json (created if missing).",
             DefaultValueFactory = _ => new DirectoryInfo("nightsim-out"),
             HelpName = "DIR",
         };
+        var start = new Option<string>("--start")
+        {
+            Description = "How a --for run starts: ramp (power-up: capacitors at 0 V, every source scaled from 0 to full over the first 1 ms) or operating-point (from the DC operating point at t = 0, no ramp).",
+            DefaultValueFactory = _ => "ramp",
+            HelpName = "ramp|operating-point",
+        };
+        start.AcceptOnlyFromAmong("ramp", "operating-point");
         var nodes = new Option<string?>("--nodes") { Description = "Comma-separated nodes to record (default: every node).", HelpName = "a,b" };
         var command = new Command("simulate",
             "Run a netlist through the nights of a scenario and report when the load switched on, for how long and why " +
             "(report.json, report.html, trace.csv, plots). Without a scenario, --for [--lux] runs a plain transient " +
-            "(trace.csv, statistics.json). Exit 2 on invalid input, 3 when the simulation fails, 4 with --fail-on.");
+            "(trace.csv, statistics.json). Exit 1 on a command-line mistake, 2 on invalid input, 3 when the simulation fails, 4 with --fail-on, 5 when an output cannot be written.");
         command.Arguments.Add(netlist);
         command.Options.Add(duration);
         command.Options.Add(lux);
         command.Options.Add(outDir);
         command.Options.Add(nodes);
+        command.Options.Add(start);
         command.Options.Add(scenario);
         command.Options.Add(nights);
         command.Options.Add(format);
@@ -71,11 +87,8 @@ internal static class SimulateCommand
                 ?? (durationText is null ? SimulateNight.CompanionScenario(net.ToString()) : null);
             if (scenarioPath is not null)
             {
-                if (pr.GetValue(nights) is int n && n is < 1 or > 3660)
-                {
-                    error.WriteLine("--nights: give 1 to 3660 nights (ten years)");
-                    return CliErrors.InvalidInput;
-                }
+                if (pr.GetValue(lux) is not null)
+                    error.WriteLine($"warning: --lux does not apply to a night run: the scenario {scenarioPath} lights the sensors. hint: use --for DURATION for a plain transient under constant light");
                 var settings = new SimulateNight.Settings(net.ToString(), scenarioPath, pr.GetValue(nights), pr.GetValue(outDir)!,
                     pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots));
                 return SimulateNight.Execute(settings, Terminal.For(output), output, error);
@@ -83,25 +96,45 @@ internal static class SimulateCommand
             if (durationText is null)
             {
                 error.WriteLine($"{net}: no scenario given and no {Path.GetFileNameWithoutExtension(net.Name)}.scenario.json beside it. hint: add --scenario FILE for a night run, or --for DURATION (e.g. --for 10s) for a plain transient");
-                return CliErrors.InvalidInput;
+                return CliErrors.Usage;
             }
-            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), output, error);
+            StartMode startMode = pr.GetValue(start) == "operating-point" ? StartMode.OperatingPoint : StartMode.PowerUp;
+            return Execute(net, durationText, pr.GetValue(lux), pr.GetValue(outDir)!, pr.GetValue(nodes), startMode, output, error);
         }));
         return command;
     }
 
-    private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList, TextWriter output, TextWriter error)
+    private static int Execute(FileInfo netlistFile, string durationText, string? luxText, DirectoryInfo outDir, string? nodeList,
+        StartMode startMode, TextWriter output, TextWriter error)
     {
+        if (CliNumbers.DecimalComma(durationText))
+        {
+            error.WriteLine($"--for: \"{CliNumbers.Clip(durationText)}\" has a decimal comma. hint: write a decimal point, e.g. --for 1.5h");
+            return CliErrors.Usage;
+        }
         if (!Duration.TryParse(durationText, out double stop, out string? durationError))
         {
             error.WriteLine($"--for: {durationError}");
-            return CliErrors.InvalidInput;
+            return CliErrors.Usage;
+        }
+        if (!(stop > 0) || !double.IsFinite(stop))
+        {
+            error.WriteLine($"--for: \"{CliNumbers.Clip(durationText)}\" is not a positive duration. hint: write e.g. --for 10s, --for 90min or --for 24h");
+            return CliErrors.Usage;
         }
         double lux = 0;
-        if (luxText is not null && (!EngineeringValue.TryParse(luxText, "lx", out lux, out string? luxError) || lux < 0))
+        if (luxText is not null)
         {
-            error.WriteLine($"--lux: {(lux < 0 ? "illuminance must be ≥ 0 lx" : luxError)}");
-            return CliErrors.InvalidInput;
+            if (CliNumbers.DecimalComma(luxText))
+            {
+                error.WriteLine($"--lux: \"{CliNumbers.Clip(luxText)}\" has a decimal comma. hint: write a decimal point, e.g. --lux 2.5");
+                return CliErrors.Usage;
+            }
+            if (!EngineeringValue.TryParse(luxText, "lx", out lux, out string? luxError) || !double.IsFinite(lux) || lux < 0)
+            {
+                error.WriteLine($"--lux: {(luxError ?? $"\"{CliNumbers.Clip(luxText)}\" is not an illuminance of 0 lx or more")}. hint: write e.g. --lux 2.5");
+                return CliErrors.Usage;
+            }
         }
 
         string path = netlistFile.ToString();
@@ -109,8 +142,7 @@ internal static class SimulateCommand
         foreach (NetlistError w in loaded.Warnings) error.WriteLine(w.ToString());
         if (!loaded.IsValid)
         {
-            foreach (NetlistError e in loaded.Errors) error.WriteLine(e.ToString());
-            error.WriteLine(loaded.Errors.Count == 1 ? "1 error." : $"{loaded.Errors.Count} errors.");
+            CliErrors.WriteProblems([.. loaded.Errors.Select(e => e.ToString())], error);
             return CliErrors.InvalidInput;
         }
         NetlistDefinition def = loaded.Definition!;
@@ -120,6 +152,14 @@ internal static class SimulateCommand
         }
 
         Circuit circuit = Circuit.Build(def);
+        if (luxText is not null)
+        {
+            var sensors = circuit.Devices.OfType<ILightSensor>().Select(d => (Id: ((Device)d).PartId, d.Light.HasOwnLight)).Distinct().ToList();
+            foreach (var (id, _) in sensors.Where(s => s.HasOwnLight))
+                error.WriteLine($"warning: --lux does not apply to {id}: it has its own lux or lux points in {path}, which it keeps. hint: remove them from the part to drive it with --lux");
+            if (sensors.Count == 0)
+                error.WriteLine($"warning: --lux has no effect: {path} has no light sensor");
+        }
         IReadOnlyList<string>? record = null;
         if (!string.IsNullOrWhiteSpace(nodeList))
         {
@@ -128,12 +168,18 @@ internal static class SimulateCommand
             if (unknown.Count > 0)
             {
                 var known = circuit.Labels.Where((_, i) => circuit.Kinds[i] == Mna.UnknownKind.Node);
-                error.WriteLine($"--nodes: {string.Join(", ", unknown.Select(u => $"'{u}'"))} not in {path}. hint: nodes are {string.Join(", ", known)}");
-                return CliErrors.InvalidInput;
+                int total = known.Count();
+                error.WriteLine($"--nodes: {string.Join(", ", unknown.Take(5).Select(u => $"'{CliNumbers.Clip(u)}'"))} not in {path}. hint: nodes are {string.Join(", ", known.Take(20))}{(total > 20 ? $" and {total - 20} more" : "")}");
+                return CliErrors.Usage;
             }
         }
 
-        var options = TransientOptions.Default with { RecordNodes = record, ConstantLux = lux };
+        var options = TransientOptions.Default with { RecordNodes = record, ConstantLux = lux, Start = startMode };
+        foreach ((string id, double corner) in PowerUpRamp.SourceCornersInside(circuit, options))
+        {
+            error.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"warning: {id} changes at {EngineeringValue.Format(corner, "s")}, inside the {EngineeringValue.Format(options.SupplyRamp, "s")} power-up ramp that scales every source from 0: its waveform there is shaped by the ramp (a step at 0 s becomes a {EngineeringValue.Format(options.SupplyRamp, "s")} ramp). hint: --start operating-point, or move the change after {EngineeringValue.Format(options.SupplyRamp, "s")}"));
+        }
         SimulationResult result = TransientSolver.Run(circuit, stop, options);
         SolverStatistics s = result.Statistics;
         if (result.Failure is { } failure)
@@ -142,18 +188,19 @@ internal static class SimulateCommand
             return CliErrors.Unexpected;
         }
 
-        outDir.Create();
+        OutputException.Guard(outDir.FullName, () => outDir.Create());
         string tracePath = Path.Combine(outDir.FullName, "trace.csv");
         string statsPath = Path.Combine(outDir.FullName, "statistics.json");
-        AtomicFile.Write(tracePath, stream =>
+        OutputException.Guard(tracePath, () => AtomicFile.Write(tracePath, stream =>
         {
             using var writer = new StreamWriter(stream, leaveOpen: true);
             TraceCsv.Write(result.Traces, writer);
-        });
-        AtomicFile.Write(statsPath, stream => StatisticsJson.Write(result, stream));
+        }));
+        OutputException.Guard(statsPath, () => AtomicFile.Write(statsPath, stream => StatisticsJson.Write(result, stream)));
 
         var inv = CultureInfo.InvariantCulture;
-        output.WriteLine($"{def.Name}: simulated {EngineeringValue.Format(stop, "s")} from power-up");
+        output.WriteLine($"{def.Name}: simulated {EngineeringValue.Format(stop, "s")} from " +
+            (startMode == StartMode.OperatingPoint ? "the operating point" : $"power-up ({EngineeringValue.Format(options.SupplyRamp, "s")} source ramp)"));
         output.WriteLine(string.Create(inv, $"  steps: {s.AcceptedSteps} accepted, {s.RejectedSteps} rejected; Newton iterations {s.NewtonIterations}; factorisations {s.Factorizations}"));
         output.WriteLine(string.Create(inv, $"  step size: {EngineeringValue.Format(s.MinStep, "s")} … {EngineeringValue.Format(s.MaxStep, "s")}; events {s.Events}; CPU {s.CpuSeconds:F3} s"));
         foreach (Trace t in result.Traces.Take(8))

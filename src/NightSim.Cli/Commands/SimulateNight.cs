@@ -40,24 +40,52 @@ internal static class SimulateNight
         foreach (NetlistError w in loaded.Warnings) error.WriteLine(w.ToString());
         if (!loaded.IsValid)
         {
-            foreach (NetlistError e in loaded.Errors) error.WriteLine(e.ToString());
-            error.WriteLine(loaded.Errors.Count == 1 ? "1 error." : $"{loaded.Errors.Count} errors.");
+            CliErrors.WriteProblems([.. loaded.Errors.Select(e => e.ToString())], error);
             return CliErrors.InvalidInput;
         }
         LightScenario scenario = ScenarioLoader.LoadOrThrow(s.ScenarioPath);
-        // The output folder is checked before the run, not after it: a file in its place is bad input.
+        // The output folder is checked before the run, not after it: a file in its place cannot take the outputs.
         string dir = s.Out.FullName;
         if (File.Exists(dir))
         {
-            error.WriteLine($"--out: {s.Out} is a file, not a folder. hint: give a folder name, e.g. --out out/night");
-            return CliErrors.InvalidInput;
+            error.WriteLine($"--out: {s.Out}: cannot write: it is a file, not a folder. hint: give a folder name, e.g. --out out/night");
+            return CliErrors.OutputFailed;
         }
-        Directory.CreateDirectory(dir);
+        bool created = !Directory.Exists(dir);
+        OutputException.Guard(dir, () => Directory.CreateDirectory(dir));
+        bool done = false;
+        try
+        {
+            int code = Run(s, loaded.Definition!, scenario, dir, console, output, error);
+            done = code != CliErrors.Unexpected;
+            return code;
+        }
+        finally
+        {
+            // A failed run leaves nothing behind in a folder it created itself.
+            if (!done && created) TryDelete(dir);
+        }
+    }
+
+    private static void TryDelete(string dir)
+    {
+        try
+        {
+            Directory.Delete(dir, recursive: true);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            // Best effort: the failure itself is what gets reported.
+        }
+    }
+
+    private static int Run(Settings s, NetlistDefinition netlist, LightScenario scenario, string dir, IAnsiConsole console, TextWriter output, TextWriter error)
+    {
         if (s.Nights is int n) scenario = scenario with { Nights = n };
 
         var request = new NightRunRequest
         {
-            Netlist = loaded.Definition!,
+            Netlist = netlist,
             NetlistPath = s.NetlistPath,
             Scenario = scenario,
             ScenarioPath = s.ScenarioPath,
@@ -75,13 +103,13 @@ internal static class SimulateNight
         }
 
         NightReport report = result.Report;
-        RemoveOldPlots(dir);
+        OutputException.Guard(dir, () => RemoveOldPlots(dir));
         var written = new List<string>();
         string reportPath = Path.Combine(dir, "report.json");
-        JsonReportWriter.Write(report, reportPath);
+        OutputException.Guard(reportPath, () => JsonReportWriter.Write(report, reportPath));
         written.Add(reportPath);
         string tracePath = Path.Combine(dir, "trace.csv");
-        CsvTraceWriter.Write(result.Traces, tracePath);
+        OutputException.Guard(tracePath, () => CsvTraceWriter.Write(result.Traces, tracePath));
         written.Add(tracePath);
 
         var figures = new List<HtmlFigure>();
@@ -92,7 +120,7 @@ internal static class SimulateNight
             foreach (PlotData data in result.Plots)
             {
                 PlotModel model = NightPlotBuilder.Build(data);
-                PlotFiles files = PlotWriter.Write(model, dir, data.FileStem);
+                PlotFiles files = OutputException.Guard(Path.Combine(dir, data.FileStem + ".svg"), () => PlotWriter.Write(model, dir, data.FileStem));
                 written.Add(files.SvgPath);
                 if (files.PngPath is not null) written.Add(files.PngPath);
                 plotWarning ??= files.Warning;
@@ -100,7 +128,7 @@ internal static class SimulateNight
             }
         }
         string htmlPath = Path.Combine(dir, "report.html");
-        HtmlReportWriter.Write(report, figures, htmlPath);
+        OutputException.Guard(htmlPath, () => HtmlReportWriter.Write(report, figures, htmlPath));
         written.Add(htmlPath);
 
         if (s.Format == "json")
@@ -136,7 +164,7 @@ internal static class SimulateNight
     {
         if (failOn is null) return CliErrors.Success;
         Analysis.Severity level = failOn == "warning" ? Analysis.Severity.Warning : Analysis.Severity.Error;
-        return report.Findings.Any(f => f.Severity >= level) ? 4 : CliErrors.Success;
+        return report.Findings.Any(f => f.Severity >= level) ? CliErrors.FindingAtLevel : CliErrors.Success;
     }
 
     /// <summary>Maps the run's overall fraction to night-by-night progress.</summary>

@@ -19,11 +19,14 @@ internal static class SkyCommand
     /// <summary>Builds the verb. Output goes to <paramref name="output"/> / <paramref name="error"/> (console when null).</summary>
     public static Command Create(TextWriter? output = null, TextWriter? error = null)
     {
-        var lat = new Option<double>("--lat") { Description = "Latitude, degrees (north positive)", Required = true };
-        var lon = new Option<double>("--lon") { Description = "Longitude, degrees (east positive)", Required = true };
+        var lat = CliNumbers.Real("--lat", "Latitude, degrees (north positive), -90 to 90 with a decimal point", -90, 90, "--lat 52.1");
+        lat.Required = true;
+        var lon = CliNumbers.Real("--lon", "Longitude, degrees (east positive), -180 to 180 with a decimal point", -180, 180, "--lon 8.6");
+        lon.Required = true;
         var tz = new Option<string>("--tz") { Description = "IANA time zone, e.g. Europe/Berlin", Required = true };
         var date = new Option<string>("--date") { Description = "Date of the first night, YYYY-MM-DD", Required = true };
-        var days = new Option<int>("--days") { Description = "Number of nights", DefaultValueFactory = _ => 1 };
+        var days = CliNumbers.Whole<int>("--days", "Number of nights, 1 to 3660", 1, 3660, "nights");
+        days.DefaultValueFactory = _ => 1;
         var format = new Option<string>("--format") { Description = "Output format", DefaultValueFactory = _ => "text" };
         format.AcceptOnlyFromAmong("text", "json");
         var plot = new Option<string?>("--plot") { Description = "Draw illuminance against local time into an .svg or .png file" };
@@ -43,27 +46,27 @@ internal static class SkyCommand
         return cmd;
     }
 
-    /// <summary>Runs the verb; returns the exit code (0 ok, 1 usage, 2 bad input).</summary>
+    /// <summary>Runs the verb; returns the exit code (0 ok, 1 a command-line mistake, 5 the plot could not be written).</summary>
     public static int Run(SkySettings s, TextWriter output, TextWriter error)
     {
         string? coordError = Site.ValidateCoordinates(s.Latitude, s.Longitude);
-        if (coordError is not null) { error.WriteLine($"error: {coordError}"); return 2; }
-        if (!Site.TryFindTimeZone(s.TimeZone, out TimeZoneInfo zone, out string? tzError)) { error.WriteLine($"error: --tz: {tzError}"); return 2; }
+        if (coordError is not null) { error.WriteLine($"error: {coordError}"); return CliErrors.Usage; }
+        if (!Site.TryFindTimeZone(s.TimeZone, out TimeZoneInfo zone, out string? tzError)) { error.WriteLine($"error: --tz: {tzError}"); return CliErrors.Usage; }
         if (!DateOnly.TryParseExact(s.Date, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out DateOnly first))
         {
-            error.WriteLine($"error: --date: \"{s.Date}\" is not a date; write YYYY-MM-DD, e.g. 2026-12-21");
-            return 2;
+            error.WriteLine($"error: --date: \"{CliNumbers.Clip(s.Date)}\" is not a date; write YYYY-MM-DD, e.g. 2026-12-21");
+            return CliErrors.Usage;
         }
-        if (s.Days < 1 || s.Days > 3660) { error.WriteLine("error: --days must be 1…3660"); return 2; }
+        if (s.Days < 1 || s.Days > 3660) { error.WriteLine("error: --days must be 1…3660"); return CliErrors.Usage; }
         if (first.Year < 1 + 1 || first.AddDays(s.Days + 1).Year > 9998)
         {
             error.WriteLine("error: --date: give a date between the years 2 and 9997");
-            return 2;
+            return CliErrors.Usage;
         }
         if (s.PlotFile is not null && !SkyPlot.IsSupported(s.PlotFile))
         {
-            error.WriteLine($"error: --plot: \"{s.PlotFile}\" must end in .svg or .png");
-            return 2;
+            error.WriteLine($"error: --plot: \"{CliNumbers.Clip(s.PlotFile)}\" must end in .svg or .png");
+            return CliErrors.Usage;
         }
 
         var site = new Site("site", s.Latitude, s.Longitude, zone);
@@ -77,7 +80,7 @@ internal static class SkyCommand
         if (s.PlotFile is not null)
         {
             string? plotError = SkyPlot.Write(s.PlotFile, site, first, s.Days, nights.Select(n => n.Events).ToList());
-            if (plotError is not null) { error.WriteLine($"error: --plot: {plotError}"); return 2; }
+            if (plotError is not null) { error.WriteLine($"error: --plot: {plotError}. hint: check free disk space and that the folder exists and is writable"); return CliErrors.OutputFailed; }
         }
 
         if (s.Format == "json") output.Write(ToJson(nights));

@@ -64,12 +64,12 @@ internal static class StudyCommon
         return new NightRunRequest { Netlist = loaded.Definition!, NetlistPath = netlistPath, Scenario = scenario, ScenarioPath = sc, Tool = Tool };
     }
 
-    /// <summary>Creates the output folder; a file in its place is bad input.</summary>
+    /// <summary>Creates the output folder; a file in its place, or a folder that cannot be made, is an output failure (exit 5).</summary>
     public static string OutDir(DirectoryInfo? given, string fallback)
     {
         string dir = (given ?? new DirectoryInfo(fallback)).FullName;
-        if (File.Exists(dir)) throw new StudyFileException([$"--out: {dir} is a file, not a folder. hint: give a folder name"]);
-        Directory.CreateDirectory(dir);
+        if (File.Exists(dir)) throw new OutputException(dir, new IOException("it is a file, not a folder"));
+        OutputException.Guard(dir, () => Directory.CreateDirectory(dir));
         return dir;
     }
 
@@ -91,8 +91,8 @@ internal static class StudyCommon
         {
             var printer = progress ? new ProgressLines(what, error) : null;
             T?[] results = StudyRunner.Run(indices, work, workers ?? Environment.ProcessorCount, cts.Token, printer);
-            printer?.Done();
             var items = results.Where(r => r is not null).Select(r => r!).ToList();
+            printer?.Done(items.Count == indices.Count);
             return (items, items.Count == indices.Count);
         }
         finally
@@ -152,9 +152,9 @@ internal static class StudyCommon
             }
         }
 
-        public void Done()
+        public void Done(bool complete)
         {
-            if (_any) error.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{what}: done in {ReportText.Duration(Math.Round(_clock.Elapsed.TotalSeconds))}"));
+            if (_any) error.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{what}: {(complete ? "done" : "stopped")} after {ReportText.Duration(Math.Round(_clock.Elapsed.TotalSeconds))}"));
         }
     }
 }

@@ -51,11 +51,11 @@ internal static class SweepCommand
                         return StudyCommon.Interrupted;
                     }
                     string path = Path.Combine(dir, shard.FileName);
-                    ShardFile.Write(path, header, shard, done);
+                    OutputException.Guard(path, () => ShardFile.Write(path, header, shard, done));
                     output.WriteLine($"wrote {path} ({done.Count} of {study.Total} points); join the shards with: nightsim merge DIR... --out DIR");
                     return CliErrors.Success;
                 }
-                return Finish(header, request.Netlist, axes, done, complete, dir, pr.GetValue(o.Format)!, output, error);
+                return OutputException.Guard(dir, () => Finish(header, request.Netlist, axes, done, complete, dir, pr.GetValue(o.Format)!, output, error));
             }
             catch (UsageException u)
             {
@@ -96,9 +96,9 @@ internal static class SweepCommand
             if (targets.OnMin is double lo) lines.Add(("target min", lo / 3600));
             if (targets.OnMax is double hi) lines.Add(("target max", hi / 3600));
             figures.Add(StudyCommon.Plot(StudyPlots.Line($"On-time against {a.Key}", report.Summary() + "; crosses: points that miss a target (false trigger, missed night, …)",
-                $"{a.Key} ({a.Unit})", a.LogScale, "on-time of the dusk switch-on (h)", on, lines), dir, "sweep-on-time", $"On-time against {a.Key} with the target range", written, ref warning));
+                a.Key, a.Unit, a.LogScale, "on-time of the dusk switch-on (h)", on, lines), dir, "sweep-on-time", $"On-time against {a.Key} with the target range", written, ref warning));
             var ft = points.Select(p => (p.Values[0].Value, (double?)(p.Outcome.FalseTriggers + (p.Outcome.Missed ? 0 : 0)), p.Outcome.Pass)).ToList();
-            figures.Add(StudyCommon.Plot(StudyPlots.Line($"False triggers against {a.Key}", "switch-ons not caused by dusk; the target is none", $"{a.Key} ({a.Unit})", a.LogScale,
+            figures.Add(StudyCommon.Plot(StudyPlots.Line($"False triggers against {a.Key}", "switch-ons not caused by dusk; the target is none", a.Key, a.Unit, a.LogScale,
                 "false triggers", ft, [("target: none", 0)]), dir, "sweep-false-triggers", $"False triggers against {a.Key}", written, ref warning));
         }
         else if (axes.Count >= 2 && points.Count > 0)
@@ -106,7 +106,7 @@ internal static class SweepCommand
             SweepAxis ax = axes[0], ay = axes[1];
             var byCell = points.Where(p => axes.Count == 2).ToDictionary(p => (Array.IndexOf([.. ax.Values], p.Values[0].Value), Array.IndexOf([.. ay.Values], p.Values[1].Value)));
             figures.Add(StudyCommon.Plot(StudyPlots.HeatMap($"Targets over {ax.Key} × {ay.Key}", report.Summary() + "; green passes, red fails, black line: the target boundary; cells: on-time / problems",
-                $"{ax.Key} ({ax.Unit})", ax.Values, $"{ay.Key} ({ay.Unit})", ay.Values,
+                ax.Key, ax.Unit, ax.Values, ay.Key, ay.Unit, ay.Values,
                 (i, j) => byCell.TryGetValue((i, j), out SweepPoint? p) ? (p.Outcome.Pass, CellText(p.Outcome)) : (false, "not run")),
                 dir, "sweep-map", $"Pass/fail map over {ax.Key} × {ay.Key}", written, ref warning));
         }

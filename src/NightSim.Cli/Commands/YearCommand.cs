@@ -54,11 +54,11 @@ internal static class YearCommand
                         return StudyCommon.Interrupted;
                     }
                     string path = Path.Combine(dir, shard.FileName);
-                    ShardFile.Write(path, header, shard, done);
+                    OutputException.Guard(path, () => ShardFile.Write(path, header, shard, done));
                     output.WriteLine($"wrote {path} ({done.Count} of {study.Total} nights); join the shards with: nightsim merge DIR... --out DIR");
                     return CliErrors.Success;
                 }
-                return Finish(header, request.Netlist, done, complete, dir, pr.GetValue(o.Format)!, output, error);
+                return OutputException.Guard(dir, () => Finish(header, request.Netlist, done, complete, dir, pr.GetValue(o.Format)!, output, error));
             }
             catch (UsageException u)
             {

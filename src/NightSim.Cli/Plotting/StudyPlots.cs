@@ -50,13 +50,13 @@ public static class StudyPlots
     }
 
     /// <summary>One outcome against one swept value, with target lines (horizontal) and failing points marked.</summary>
-    public static PlotModel Line(string title, string subtitle, string xTitle, bool logX, string yTitle,
+    public static PlotModel Line(string title, string subtitle, string xTitle, string xUnit, bool logX, string yTitle,
         IReadOnlyList<(double X, double? Y, bool Pass)> points, IReadOnlyList<(string Label, double Y)> targets)
     {
         PlotModel model = Model(title, subtitle);
         model.Axes.Add(logX
-            ? new LogarithmicAxis { Position = AxisPosition.Bottom, Title = xTitle, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid, LabelFormatter = Eng }
-            : new LinearAxis { Position = AxisPosition.Bottom, Title = xTitle, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid, LabelFormatter = Eng });
+            ? new LogarithmicAxis { Position = AxisPosition.Bottom, Title = xTitle, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid, LabelFormatter = v => Eng(v, xUnit) }
+            : new LinearAxis { Position = AxisPosition.Bottom, Title = xTitle, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid, LabelFormatter = v => Eng(v, xUnit) });
         model.Axes.Add(new LinearAxis { Position = AxisPosition.Left, Title = yTitle, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = s_grid, MinimumPadding = 0.1, MaximumPadding = 0.1 });
         var line = new LineSeries { Color = s_bar, StrokeThickness = 1.5, MarkerType = MarkerType.Circle, MarkerSize = 4, MarkerFill = s_bar, Title = "pass" };
         var fail = new ScatterSeries { MarkerType = MarkerType.Cross, MarkerSize = 7, MarkerStroke = s_target, MarkerStrokeThickness = 2, Title = "fails a target" };
@@ -77,12 +77,12 @@ public static class StudyPlots
 
     /// <summary>A heat map of pass (green) / fail (red) cells over two swept values, shaded by an outcome, with the
     /// boundary between passing and failing cells drawn.</summary>
-    public static PlotModel HeatMap(string title, string subtitle, string xTitle, IReadOnlyList<double> xs, string yTitle,
-        IReadOnlyList<double> ys, Func<int, int, (bool Pass, string Text)> cell)
+    public static PlotModel HeatMap(string title, string subtitle, string xTitle, string xUnit, IReadOnlyList<double> xs, string yTitle,
+        string yUnit, IReadOnlyList<double> ys, Func<int, int, (bool Pass, string Text)> cell)
     {
         PlotModel model = Model(title, subtitle);
-        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Bottom, Title = xTitle, ItemsSource = xs.Select(x => Eng(x)).ToList(), GapWidth = 0 });
-        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Left, Title = yTitle, ItemsSource = ys.Select(y => Eng(y)).ToList(), GapWidth = 0 });
+        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Bottom, Title = xTitle, ItemsSource = xs.Select(x => Eng(x, xUnit)).ToList(), GapWidth = 0 });
+        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Left, Title = yTitle, ItemsSource = ys.Select(y => Eng(y, yUnit)).ToList(), GapWidth = 0 });
         var pass = OxyColor.FromRgb(0x7F, 0xC9, 0x7F);
         var failc = OxyColor.FromRgb(0xF4, 0x8F, 0x8F);
         for (int i = 0; i < xs.Count; i++)
@@ -110,8 +110,8 @@ public static class StudyPlots
         return model;
     }
 
-    /// <summary>Engineering notation for axis labels ("4.7k", "100n").</summary>
-    public static string Eng(double v) => Units.EngineeringValue.Format(v, "", 3);
+    /// <summary>Engineering notation for axis labels ("4.7 kΩ", "100 nF").</summary>
+    public static string Eng(double v, string unit) => Units.EngineeringValue.Format(v, unit, 3);
 
     private static PolylineAnnotation Edge(double x1, double y1, double x2, double y2)
     {

@@ -90,7 +90,7 @@ public static class LoadTimeline
         foreach (EventFact e in facts.Events)
         {
             if (!e.Darkening) continue;
-            double lag = e.Cause == LoadCause.Noise ? 1.0 : facts.AttributionLag;
+            double lag = e.Cause == LoadCause.Noise ? 1.0 : facts.AttributionLagAt?.Invoke(e.End + 1e-3) ?? facts.AttributionLag;
             if (t >= e.Start - 1e-6 && t <= e.End + lag && (best is null || e.End > best.End)) best = e;
         }
         if (best is not null)
@@ -98,7 +98,7 @@ public static class LoadTimeline
             return (best.Cause, $"{best.Description} at {Wording.Clock(facts.Clock(best.Start))}", best);
         }
 
-        if (facts.LampCouplingLux > 0 && previousEnd is double pe && t - pe <= facts.AttributionLag)
+        if (facts.LampCouplingLux > 0 && previousEnd is double pe && t - pe <= (facts.AttributionLagAt?.Invoke(pe + 1e-3) ?? facts.AttributionLag))
         {
             return (LoadCause.SelfIllumination,
                 $"the lamp's own light ({facts.LampCouplingLux:0.##} lx at the sensor) went out at {Wording.Clock(facts.Clock(pe))}, and the sensor saw darkness again", null);

@@ -149,6 +149,10 @@ public sealed record RunFacts
     /// (the sensor's decay lag and the trigger network).</summary>
     public double AttributionLag { get; init; } = 30.0;
 
+    /// <summary>The attribution lag for a darkening edge at run time t, seconds (the sensor slows down in the dark);
+    /// null: <see cref="AttributionLag"/> everywhere.</summary>
+    public Func<double, double>? AttributionLagAt { get; init; }
+
     /// <summary>Clock time of a run time.</summary>
     public DateTimeOffset Clock(double runSeconds) => TimeZoneInfo.ConvertTime(Origin.AddSeconds(runSeconds), TimeZone);
 }

@@ -23,6 +23,7 @@ public sealed class CurrentSource : Device
         Name = "current-source",
         Description = "Independent current source (constant, pulse, sine or points); current flows through it from nodes[0] to nodes[1].",
         Pins = ["p", "n"],
+        PinsThatMustDiffer = ["p", "n"],
         UsesNodeList = true,
         Parameters = Waveform.Specs("A", 1e3),
         Check = Waveform.CheckChoice,

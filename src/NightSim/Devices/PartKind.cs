@@ -49,4 +49,9 @@ public sealed class PartKind
 
     /// <summary>Voltage from which a source counts as mains-level, V.</summary>
     public const double MainsVoltage = 50.0;
+
+    /// <summary>Pins that must not all sit on one node: shorted together the part cannot work (a relay coil that can
+    /// never carry current, a current source driving into itself). The loader makes that an error; any other part
+    /// with every pin on one node gets a warning.</summary>
+    public IReadOnlyList<string> PinsThatMustDiffer { get; init; } = [];
 }

@@ -76,6 +76,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         Description = "Relay: R-L coil, pull-in/drop-out hysteresis, operate/release times, changeover contacts, named load",
         Pins = ["coilA", "coilB", "com", "no", "nc", "com2", "no2", "nc2"],
         OptionalPins = ["com", "no", "nc", "com2", "no2", "nc2"],
+        PinsThatMustDiffer = ["coilA", "coilB"],
         Parameters = [s_coilResistance, s_coilInductance, s_pullIn, s_dropOut, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact, s_thresholdTolerance],
         Check = CheckDefinition,
         FacesMains = part => part.Parameters.Has(s_load.Name),

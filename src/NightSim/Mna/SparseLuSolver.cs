@@ -1,15 +1,15 @@
 namespace NightSim.Mna;
 
 /// <summary>
-/// Sparse LU for small MNA matrices (20–200 unknowns) with a pivot order chosen once and numeric refactorisation on
-/// the fixed pattern.
+/// Sparse LU for MNA matrices with a pivot order chosen once and numeric refactorisation on the fixed pattern; the
+/// analysis and the factorisation scale with the entries (fill included), not with n².
 /// </summary>
 /// <remarks>
 /// <para><b>Analysis</b> (on the values of the first matrix, and again whenever a pivot goes bad): Markowitz ordering
 /// (Markowitz 1957) — at each elimination step choose, among entries that pass the threshold test
 /// |a_ij| ≥ u·max_i|a_ij| in their reduced column (u = 0.1, threshold partial pivoting, Duff–Erisman–Reid §7.8),
 /// the one with the smallest (r_i − 1)(c_j − 1), ties broken by the larger |a_ij| relative to its column.
-/// The elimination runs on a dense work copy (n ≤ a few hundred), recording fill-in. The result is compiled into
+/// The elimination runs on sparse row maps and column sets of the active submatrix, recording fill-in. The result is compiled into
 /// flat operation lists: per pivot k the positions of its L column, of its U row, and of every update target
 /// a[t] −= l·u (the idea of a symbolically generated elimination, Gustavson, Liniger &amp; Willoughby 1970).</para>
 /// <para><b>Refactorisation</b> replays those lists on new values without any search; each pivot is checked
@@ -21,6 +21,7 @@ public sealed class SparseLuSolver : ILinearSolver
 {
     private const double Threshold = 0.1;
     private const double PivotDrop = 1e-3;
+    private const int SearchLines = 4;
 
     private readonly int _n;
     private readonly int[] _slotRow;
@@ -59,6 +60,13 @@ public sealed class SparseLuSolver : ILinearSolver
 
     /// <summary>Entries of L and U (fill included) in the current compiled factorisation.</summary>
     public int FactorNonzeros => _lu.Length;
+
+    /// <summary>Multiply-subtract operations of one refactorisation on the current compiled order.</summary>
+    public int FactorOperations => _opTarget.Length;
+
+    /// <summary>Entries visited by every pivot-order analysis so far (search, column maxima, elimination): the
+    /// analysis cost, counted rather than timed.</summary>
+    public long AnalysisWork { get; private set; }
 
     public bool Factor(ReadOnlySpan<double> values)
     {
@@ -121,130 +129,173 @@ public sealed class SparseLuSolver : ILinearSolver
     }
 
     /// <summary>Choose the pivot order on the current values and compile the operation lists.</summary>
+    /// <remarks>The active submatrix is held as one value map per row and one row set per column, so the work grows
+    /// with the entries (fill included), not with n². The pivot search visits columns and rows in order of their
+    /// entry count (buckets by count) and stops once no unvisited entry can beat the best cost found: after the lines
+    /// of count m every unvisited entry costs at least (m − 1)²; it also stops after <see cref="SearchLines"/> lines that
+    /// held a candidate (the restricted Markowitz search of Duff, Erisman &amp; Reid, "Direct Methods for Sparse
+    /// Matrices", §9.2).</remarks>
     private bool Analyze(ReadOnlySpan<double> values)
     {
         Analyses++;
         int n = _n;
-        var w = new double[n * n];
-        var s = new bool[n * n];
+        long work = 0;
+        var rows = new Dictionary<int, double>[n];
+        var cols = new HashSet<int>[n];
+        for (int i = 0; i < n; i++) { rows[i] = []; cols[i] = []; }
         var colScale = new double[n];
         for (int k = 0; k < _slotRow.Length; k++)
         {
             int i = _slotRow[k], j = _slotCol[k];
-            w[i * n + j] += values[k];
-            s[i * n + j] = true;
-        }
-        for (int k = 0; k < _slotRow.Length; k++)
-        {
+            rows[i][j] = rows[i].GetValueOrDefault(j) + values[k];
+            cols[j].Add(i);
             double av = Math.Abs(values[k]);
-            if (av > colScale[_slotCol[k]]) colScale[_slotCol[k]] = av;
+            if (av > colScale[j]) colScale[j] = av;
         }
-        var rowCount = new int[n];
-        var colCount = new int[n];
-        for (int i = 0; i < n; i++)
-            for (int j = 0; j < n; j++)
-                if (s[i * n + j]) { rowCount[i]++; colCount[j]++; }
-        var rowDone = new bool[n];
-        var colDone = new bool[n];
+        var rowBuckets = new CountBuckets(n);
+        var colBuckets = new CountBuckets(n);
+        for (int i = 0; i < n; i++) { rowBuckets.Set(i, rows[i].Count); colBuckets.Set(i, cols[i].Count); }
+
         var pivRow = new int[n];
         var pivCol = new int[n];
         var pivotRatio = new double[n];
-        var colMax = new double[n];
+        // Per pivot: original rows of its L column and original columns of its U row.
+        var lRows = new int[n][];
+        var uCols = new int[n][];
+
+        double ColMax(int j)
+        {
+            double m = 0;
+            foreach (int i in cols[j]) m = Math.Max(m, Math.Abs(rows[i][j]));
+            work += cols[j].Count;
+            return m;
+        }
 
         for (int k = 0; k < n; k++)
         {
-            for (int j = 0; j < n; j++)
-            {
-                colMax[j] = 0;
-                if (colDone[j]) continue;
-                for (int i = 0; i < n; i++)
-                    if (!rowDone[i] && s[i * n + j]) colMax[j] = Math.Max(colMax[j], Math.Abs(w[i * n + j]));
-            }
             int bi = -1, bj = -1;
             long bestCost = long.MaxValue;
             double bestRel = 0;
-            for (int i = 0; i < n; i++)
+            int linesWithCandidate = 0;
+            void Consider(int i, int j, double colMax)
             {
-                if (rowDone[i]) continue;
-                for (int j = 0; j < n; j++)
+                double av = Math.Abs(rows[i][j]);
+                if (av == 0.0 || !double.IsFinite(av) || av < Threshold * colMax) return;
+                long cost = (long)(rows[i].Count - 1) * (cols[j].Count - 1);
+                double rel = av / colMax;
+                bool better = cost < bestCost
+                    || (cost == bestCost && (rel > bestRel || (rel == bestRel && (i < bi || (i == bi && j < bj)))));
+                if (better)
                 {
-                    if (colDone[j] || !s[i * n + j]) continue;
-                    double av = Math.Abs(w[i * n + j]);
-                    if (av == 0.0 || !double.IsFinite(av) || av < Threshold * colMax[j]) continue;
-                    long cost = (long)(rowCount[i] - 1) * (colCount[j] - 1);
-                    double rel = av / colMax[j];
-                    if (cost < bestCost || (cost == bestCost && rel > bestRel))
-                    {
-                        bestCost = cost; bestRel = rel; bi = i; bj = j;
-                    }
+                    bestCost = cost; bestRel = rel; bi = i; bj = j;
                 }
             }
-            if (bi < 0) { _analysed = false; return false; }
+            for (int m = 1; m <= n; m++)
+            {
+                if (bi >= 0 && (bestCost <= (long)(m - 1) * (m - 1) || linesWithCandidate >= SearchLines)) break;
+                foreach (int j in colBuckets.Members(m))
+                {
+                    double cm = ColMax(j);
+                    foreach (int i in cols[j]) Consider(i, j, cm);
+                    work += cols[j].Count;
+                    if (bi >= 0) linesWithCandidate++;
+                    if (bi >= 0 && (bestCost <= (long)(m - 1) * (m - 1) || linesWithCandidate >= SearchLines)) break;
+                }
+                if (bi >= 0 && (bestCost <= (long)(m - 1) * (m - 1) || linesWithCandidate >= SearchLines)) break;
+                foreach (int i in rowBuckets.Members(m))
+                {
+                    foreach (int j in rows[i].Keys) Consider(i, j, ColMax(j));
+                    work += rows[i].Count;
+                    if (bi >= 0) linesWithCandidate++;
+                    if (bi >= 0 && (bestCost <= (long)(m - 1) * (m - 1) || linesWithCandidate >= SearchLines)) break;
+                }
+            }
+            if (bi < 0) { _analysed = false; AnalysisWork += work; return false; }
             pivRow[k] = bi;
             pivCol[k] = bj;
-            double piv = w[bi * n + bj];
+            double piv = rows[bi][bj];
             pivotRatio[k] = colScale[bj] > 0 ? Math.Abs(piv) / colScale[bj] : 0;
-            rowDone[bi] = true;
-            colDone[bj] = true;
-            for (int j = 0; j < n; j++) if (s[bi * n + j]) colCount[j]--;
-            for (int i = 0; i < n; i++) if (s[i * n + bj]) rowCount[i]--;
-            for (int i = 0; i < n; i++)
-            {
-                if (rowDone[i] || !s[i * n + bj]) continue;
-                double l = w[i * n + bj] / piv;
-                for (int j = 0; j < n; j++)
-                {
-                    if (colDone[j] || !s[bi * n + j]) continue;
-                    w[i * n + j] -= l * w[bi * n + j];
-                    if (!s[i * n + j])
-                    {
-                        s[i * n + j] = true;
-                        rowCount[i]++;
-                        colCount[j]++;
-                    }
-                }
-            }
-        }
 
-        // Compile: positions of every structural entry in pivot order.
+            // The pivot row leaves every column's row set; the pivot column leaves every row's map.
+            Dictionary<int, double> prow = rows[bi];
+            var uList = new int[prow.Count - 1];
+            int u = 0;
+            foreach (int j in prow.Keys)
+            {
+                cols[j].Remove(bi);
+                if (j != bj) { uList[u++] = j; colBuckets.Set(j, cols[j].Count); }
+            }
+            var lList = new int[cols[bj].Count];
+            int l = 0;
+            foreach (int i in cols[bj]) lList[l++] = i;
+            Array.Sort(lList);
+            Array.Sort(uList);
+            rowBuckets.Remove(bi);
+            colBuckets.Remove(bj);
+            foreach (int i in lList)
+            {
+                Dictionary<int, double> row = rows[i];
+                double factor = row[bj] / piv;
+                row.Remove(bj);
+                foreach (int j in uList)
+                {
+                    double target = row.GetValueOrDefault(j);
+                    if (!row.ContainsKey(j))
+                    {
+                        cols[j].Add(i);
+                        colBuckets.Set(j, cols[j].Count);
+                    }
+                    row[j] = target - factor * prow[j];
+                }
+                rowBuckets.Set(i, row.Count);
+                work += uList.Length + 1;
+            }
+            cols[bj].Clear();
+            lRows[k] = lList;
+            uCols[k] = uList;
+        }
+        AnalysisWork += work;
+
+        // Compile: positions of every entry of L and U in pivot order.
         var rowRank = new int[n];
         var colRank = new int[n];
         for (int k = 0; k < n; k++) { rowRank[pivRow[k]] = k; colRank[pivCol[k]] = k; }
-        var pos = new int[n * n];
-        Array.Fill(pos, -1);
-        int count = 0;
-        for (int a = 0; a < n; a++)
-            for (int b = 0; b < n; b++)
-                if (s[pivRow[a] * n + pivCol[b]]) pos[a * n + b] = count++;
+        var posOf = new Dictionary<long, int>();
+        static long Key(int a, int b) => ((long)a << 32) | (uint)b;
         var lStart = new int[n + 1];
         var uStart = new int[n + 1];
         var lPos = new List<int>();
         var lRow = new List<int>();
         var uPos = new List<int>();
         var uCol = new List<int>();
-        var ops = new List<int>();
         var diag = new int[n];
+        int count = 0;
         for (int k = 0; k < n; k++)
         {
-            diag[k] = pos[k * n + k];
+            diag[k] = count;
+            posOf.Add(Key(k, k), count++);
             lStart[k] = lPos.Count;
             uStart[k] = uPos.Count;
-            for (int a = k + 1; a < n; a++)
-                if (pos[a * n + k] >= 0) { lPos.Add(pos[a * n + k]); lRow.Add(a); }
-            for (int b = k + 1; b < n; b++)
-                if (pos[k * n + b] >= 0) { uPos.Add(pos[k * n + b]); uCol.Add(b); }
-            for (int li = lStart[k]; li < lPos.Count; li++)
-                for (int ui = uStart[k]; ui < uPos.Count; ui++)
-                {
-                    int t = pos[lRow[li] * n + uCol[ui]];
-                    if (t < 0) throw new InvalidOperationException("sparse LU: fill-in position missing from the analysed pattern");
-                    ops.Add(t);
-                }
+            int[] lr = Array.ConvertAll(lRows[k], i => rowRank[i]);
+            int[] uc = Array.ConvertAll(uCols[k], j => colRank[j]);
+            Array.Sort(lr);
+            Array.Sort(uc);
+            foreach (int a in lr) { posOf.Add(Key(a, k), count); lPos.Add(count++); lRow.Add(a); }
+            foreach (int b in uc) { posOf.Add(Key(k, b), count); uPos.Add(count++); uCol.Add(b); }
         }
         lStart[n] = lPos.Count;
         uStart[n] = uPos.Count;
+        var ops = new List<int>();
+        for (int k = 0; k < n; k++)
+            for (int li = lStart[k]; li < lStart[k + 1]; li++)
+                for (int ui = uStart[k]; ui < uStart[k + 1]; ui++)
+                {
+                    if (!posOf.TryGetValue(Key(lRow[li], uCol[ui]), out int t))
+                        throw new InvalidOperationException("sparse LU: fill-in position missing from the analysed pattern");
+                    ops.Add(t);
+                }
         var slotPos = new int[_slotRow.Length];
-        for (int k = 0; k < slotPos.Length; k++) slotPos[k] = pos[rowRank[_slotRow[k]] * n + colRank[_slotCol[k]]];
+        for (int k = 0; k < slotPos.Length; k++) slotPos[k] = posOf[Key(rowRank[_slotRow[k]], colRank[_slotCol[k]])];
 
         _pivRow = pivRow;
         _pivCol = pivCol;
@@ -261,5 +312,38 @@ public sealed class SparseLuSolver : ILinearSolver
         _lu = new double[count];
         _analysed = true;
         return true;
+    }
+
+    /// <summary>Lines (rows or columns) grouped by their current entry count, for the pivot search.</summary>
+    private sealed class CountBuckets(int n)
+    {
+        private readonly int[] _countOf = CreateFilled(n);
+        private readonly List<SortedSet<int>> _buckets = [];
+
+        private static int[] CreateFilled(int n)
+        {
+            var a = new int[n];
+            Array.Fill(a, -1);
+            return a;
+        }
+
+        public void Set(int line, int count)
+        {
+            int old = _countOf[line];
+            if (old == count) return;
+            if (old >= 0) _buckets[old].Remove(line);
+            while (_buckets.Count <= count) _buckets.Add([]);
+            _buckets[count].Add(line);
+            _countOf[line] = count;
+        }
+
+        public void Remove(int line)
+        {
+            int old = _countOf[line];
+            if (old >= 0) _buckets[old].Remove(line);
+            _countOf[line] = -2;
+        }
+
+        public IEnumerable<int> Members(int count) => count < _buckets.Count ? _buckets[count] : [];
     }
 }

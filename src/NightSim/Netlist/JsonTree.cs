@@ -1,5 +1,6 @@
 using System.Text;
 using System.Text.Json;
+using NightSim.Text;
 
 namespace NightSim.Netlist;
 
@@ -49,7 +50,7 @@ internal sealed class JsonTree
     {
         JsonTreeKind.Object => "an object",
         JsonTreeKind.Array => "a list",
-        JsonTreeKind.String => $"the string \"{Text}\"",
+        JsonTreeKind.String => $"the string \"{(Text!.Length <= 40 ? Text : Text[..40] + "…")}\"",
         JsonTreeKind.Number => $"the number {Text}",
         JsonTreeKind.True => "true",
         JsonTreeKind.False => "false",
@@ -66,7 +67,7 @@ internal sealed class JsonTree
             error = ("the file is empty", 1, 1);
             return null;
         }
-        var positions = new PositionMap(utf8);
+        var positions = new Utf8Positions(utf8);
         var reader = new Utf8JsonReader(utf8, new JsonReaderOptions
         {
             CommentHandling = JsonCommentHandling.Skip,
@@ -100,7 +101,7 @@ internal sealed class JsonTree
         }
     }
 
-    private static JsonTree ReadValue(ref Utf8JsonReader reader, PositionMap positions)
+    private static JsonTree ReadValue(ref Utf8JsonReader reader, Utf8Positions positions)
     {
         (int line, int col) = positions.At(reader.TokenStartIndex);
         switch (reader.TokenType)
@@ -136,34 +137,6 @@ internal sealed class JsonTree
                 return new JsonTree(JsonTreeKind.False, line, col);
             default:
                 return new JsonTree(JsonTreeKind.Null, line, col);
-        }
-    }
-
-    /// <summary>Byte offset → 1-based line and column (columns count characters, not bytes).</summary>
-    private sealed class PositionMap
-    {
-        private readonly List<int> _lineStarts = [0];
-        private readonly byte[] _text;
-
-        public PositionMap(ReadOnlySpan<byte> utf8)
-        {
-            _text = utf8.ToArray();
-            for (int i = 0; i < utf8.Length; i++)
-            {
-                if (utf8[i] == (byte)'\n') _lineStarts.Add(i + 1);
-            }
-        }
-
-        public (int Line, int Column) At(long offset)
-        {
-            int index = _lineStarts.BinarySearch((int)offset);
-            int line = index >= 0 ? index : ~index - 1;
-            int column = 1;
-            for (int i = _lineStarts[line]; i < offset && i < _text.Length; i++)
-            {
-                if ((_text[i] & 0xC0) != 0x80) column++;
-            }
-            return (line + 1, column);
         }
     }
 }

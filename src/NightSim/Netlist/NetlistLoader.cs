@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using NightSim.Devices;
+using NightSim.Text;
 using NightSim.Units;
 
 namespace NightSim.Netlist;
@@ -39,10 +40,11 @@ public static class NetlistLoader
     /// <summary>Reads and validates the file at <paramref name="path"/> without throwing for bad input.</summary>
     public static NetlistLoadResult Read(string path)
     {
-        byte[] bytes;
+        byte[]? bytes;
+        string? tooBig;
         try
         {
-            bytes = File.ReadAllBytes(path);
+            bytes = Utf8Check.ReadBounded(path, InputLimits.MaxInputBytes, out tooBig);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
@@ -51,6 +53,8 @@ public static class NetlistLoader
                 : "cannot read the file: " + ex.Message.TrimEnd('.');
             return new NetlistLoadResult(null, [new NetlistError(path, 0, 0, "$", null, message, "check the path")], []);
         }
+        if (bytes is null)
+            return new NetlistLoadResult(null, [new NetlistError(path, 0, 0, "$", null, "the file " + tooBig, "give a netlist JSON file; an input file may hold at most 64 MB")], []);
         return ReadUtf8(bytes, path);
     }
 
@@ -60,13 +64,20 @@ public static class NetlistLoader
     private static NetlistLoadResult ReadUtf8(byte[] utf8, string file)
     {
         var session = new Session(file);
+        if (Utf8Check.Problem(utf8) is { } bad)
+        {
+            session.Error(bad.Line, bad.Column, "$", null, bad.Message, bad.Hint);
+            return session.Result(null);
+        }
         JsonTree? root = JsonTree.Parse(utf8, out var syntax);
         if (root is null)
         {
             (string message, int line, int column) = syntax!.Value;
             session.Error(line, column, "$", null, message, message == "the file is empty"
                 ? "write a netlist: { \"name\": \"my-circuit\", \"parts\": [ … ] }"
-                : "check brackets, quotes and commas near this position");
+                : message.Contains("end of data", StringComparison.Ordinal) || message.Contains("depth to be zero", StringComparison.Ordinal)
+                    ? "the file ends before the JSON does: is it complete (cut short while copying or saving)? else check the closing brackets"
+                    : "check brackets, quotes and commas near this position");
             return session.Result(null);
         }
         return session.Result(session.ReadNetlist(root));
@@ -80,6 +91,7 @@ public static class NetlistLoader
         private readonly List<NetlistError> _warnings = [];
         private readonly List<NodeRef> _nodeRefs = [];
         private readonly HashSet<string> _privateNodes = [];
+        private readonly Dictionary<string, string> _squeezedIds = new(StringComparer.Ordinal);
 
         public void Error(int line, int column, string path, string? partId, string message, string? hint) =>
             _errors.Add(new NetlistError(file, line, column, path, partId, message, hint));
@@ -124,13 +136,13 @@ public static class NetlistLoader
             }
             else
             {
-                name = nameProp.Value.Text!;
+                name = DisplayText.Clean(nameProp.Value.Text!);
             }
 
             string? description = null;
             if (root.Property("description") is { } descProp)
             {
-                if (descProp.Value.Kind == JsonTreeKind.String) description = descProp.Value.Text;
+                if (descProp.Value.Kind == JsonTreeKind.String) description = DisplayText.Clean(descProp.Value.Text!);
                 else Error(descProp.Value, "$.description", null, $"\"description\" must be a string, not {descProp.Value.Describe()}", null);
             }
             if (root.Property("$schema") is { } schemaProp && schemaProp.Value.Kind != JsonTreeKind.String)
@@ -155,6 +167,12 @@ public static class NetlistLoader
                 return null;
             }
 
+            if (partsProp.Value.Items.Count > InputLimits.MaxParts)
+            {
+                Error(partsProp.Value, "$.parts", null, $"the netlist has {partsProp.Value.Items.Count} parts, more than the limit of {InputLimits.MaxParts} parts",
+                    "split the circuit, or simulate the part of it that matters");
+                return null;
+            }
             var parts = new List<PartDefinition>();
             var ids = new Dictionary<string, JsonTree>(StringComparer.Ordinal);
             var kinds = new List<PartKind?>();
@@ -192,13 +210,29 @@ public static class NetlistLoader
             else
             {
                 id = idProp.Value.Text!;
-                if (ids.TryGetValue(id, out JsonTree? first))
+                string squeezed = string.Concat(id.Where(c => !char.IsWhiteSpace(c)));
+                if (id.Any(char.IsControl))
+                {
+                    Error(idProp.Value, path + ".id", null, $"id \"{Printable(id)}\" holds a control character (shown as �)",
+                        "use letters, digits, '-' and '_' in ids, e.g. \"R1\"");
+                }
+                else if (id != id.Trim())
+                {
+                    Error(idProp.Value, path + ".id", null, $"id \"{Clip(id)}\" starts or ends with a space", $"write \"{Clip(id.Trim())}\"");
+                }
+                else if (ids.TryGetValue(id, out JsonTree? first))
                 {
                     Error(idProp.Value, path + ".id", id, $"duplicate id \"{id}\" (first used on line {first.Line})", "give each part its own id, e.g. \"" + id + "b\"");
+                }
+                else if (_squeezedIds.TryGetValue(squeezed, out string? similar))
+                {
+                    Error(idProp.Value, path + ".id", id, $"id \"{Clip(id)}\" differs from \"{Clip(similar)}\" only by spaces",
+                        "give each part a clearly different id, without spaces");
                 }
                 else
                 {
                     ids[id] = idProp.Value;
+                    _squeezedIds[squeezed] = id;
                 }
             }
             string partId = id ?? $"#{index}";
@@ -219,8 +253,8 @@ public static class NetlistLoader
                 kind = PartCatalog.Find(kindProp.Value.Text!);
                 if (kind is null)
                 {
-                    string? near = NearestName.Find(kindProp.Value.Text!, PartCatalog.All.Select(k => k.Name));
-                    Error(kindProp.Value, path + ".kind", id, $"unknown kind \"{kindProp.Value.Text}\"",
+                    string? near = kindProp.Value.Text!.Length <= 64 ? NearestName.Find(kindProp.Value.Text!, PartCatalog.All.Select(k => k.Name)) : null;
+                    Error(kindProp.Value, path + ".kind", id, $"unknown kind \"{Printable(kindProp.Value.Text!)}\"",
                         (near is null ? "" : $"did you mean \"{near}\"? ") + "known kinds: " + knownKinds);
                 }
             }
@@ -239,6 +273,7 @@ public static class NetlistLoader
             var location = new SourceLocation(file, path, node.Line, node.Column);
             var part = new PartDefinition(id, kind.Name, pins, parameters, location);
             int before = _errors.Count;
+            CheckShortedPins(node, path, id, kind, pins);
             if (kind.Check is not null)
             {
                 foreach (string message in kind.Check(part))
@@ -264,6 +299,28 @@ public static class NetlistLoader
             }
             return (_errors.Count == before ? part : null, kind);
         }
+
+        /// <summary>A part with every pin on one node does nothing (warning); for a relay coil or a current source it
+        /// cannot work at all (error). Voltage sources are left to the source-loop check.</summary>
+        private void CheckShortedPins(JsonTree node, string path, string id, PartKind kind, Dictionary<string, string> pins)
+        {
+            if (kind.IsVoltageSource) return;
+            List<string> group = [.. kind.PinsThatMustDiffer.Where(pins.ContainsKey)];
+            if (group.Count >= 2 && group.Select(p => pins[p]).Distinct().Count() == 1)
+            {
+                Error(node, path, id, $"pins {string.Join(" and ", group)} of {id} are both on node \"{Shown(pins[group[0]])}\": shorted, the part cannot work",
+                    "connect them to different nodes");
+                return;
+            }
+            if (pins.Count >= 2 && pins.Values.Distinct().Count() == 1)
+            {
+                Warning(node.Line, node.Column, path, id, $"every pin of {id} is on node \"{Shown(pins.Values.First())}\": the part is shorted and does nothing",
+                    "check the node names");
+            }
+        }
+
+        /// <summary>Ground as the user writes it.</summary>
+        private static string Shown(string node) => Ground.Is(node) ? Ground.Node : node;
 
         private static (string Message, string? Hint) SplitHint(string message)
         {
@@ -417,10 +474,11 @@ public static class NetlistLoader
         {
             List<string> names = valid.ToList();
             string? successor = RetiredNames.Successor(p.Name, names);
-            string? near = successor is null ? NearestName.Find(p.Name, names) : null;
+            string? near = successor is null && p.Name.Length <= 64 ? NearestName.Find(p.Name, names) : null;
             string lead = successor is not null ? $"this parameter is now called \"{successor}\". "
                 : near is not null ? $"did you mean \"{near}\"? " : "";
-            Error(p.Line, p.Column, path, partId, string.Format(CultureInfo.InvariantCulture, what, "\"" + p.Name + "\""),
+            if (path.Length > 80) path = path[..80] + "…";
+            Error(p.Line, p.Column, path, partId, string.Format(CultureInfo.InvariantCulture, what, "\"" + Printable(p.Name) + "\""),
                 lead + "valid: " + string.Join(", ", names));
         }
 
@@ -552,6 +610,12 @@ public static class NetlistLoader
                     unit.Length > 0 ? $"write e.g. \"10k\" or \"100n{unit}\"" : "write a plain number, e.g. 0.5");
                 return null;
             }
+            if (!double.IsFinite(value))
+            {
+                Error(v, path, partId, $"{label} = {Clip(v.Text ?? "")} is too large to be a number (beyond ±1.8e308)",
+                    "check the exponent; write the value in engineering notation, e.g. \"4k7\" or \"2.2M\"");
+                return null;
+            }
             if (spec is not null && (value < spec.Min || value > spec.Max || double.IsNaN(value)))
             {
                 Error(v, path, partId, $"{label} = {EngineeringValue.Format(value, unit)} is outside its physical range {RangeText(spec)}",
@@ -640,6 +704,16 @@ public static class NetlistLoader
             }
 
             List<string> publicNodes = byNode.Keys.Where(n => n != Ground.Node && !_privateNodes.Contains(n)).ToList();
+            if (byNode.ContainsKey(Ground.Node) && byNode.Count == 1 && _errors.Count == 0)
+            {
+                Error(partsArray, "$.parts", null, "every part connects only to ground: there is no circuit to simulate (\"0\" and \"gnd\" are the same node)",
+                    "connect the parts between named nodes, e.g. \"nodes\": [\"in\", \"gnd\"]");
+            }
+            if (publicNodes.Count > InputLimits.MaxNodes)
+            {
+                Error(partsArray, "$.parts", null, $"the netlist has {publicNodes.Count} nodes, more than the limit of {InputLimits.MaxNodes} nodes",
+                    "split the circuit, or simulate the part of it that matters");
+            }
             foreach (string node in publicNodes)
             {
                 List<NodeRef> refs = byNode[node];
@@ -720,9 +794,15 @@ public static class NetlistLoader
                 _parent[x] = x;
                 return x;
             }
-            if (p == x) return x;
-            string root = Find(p);
-            _parent[x] = root;
+            // Iterative with path compression: a long chain of unions must not exhaust the stack.
+            string root = x;
+            while (_parent[root] is var up && up != root) root = up;
+            while (x != root)
+            {
+                string next = _parent[x];
+                _parent[x] = root;
+                x = next;
+            }
             return root;
         }
 
@@ -733,4 +813,10 @@ public static class NetlistLoader
             return ra;
         }
     }
+
+    /// <summary>Text echoed in a message: control characters shown as �.</summary>
+    private static string Printable(string text) => Clip(new string([.. text.Select(c => char.IsControl(c) ? '\uFFFD' : c)]));
+
+    /// <summary>Long text echoed in a message is cut to its first 40 characters.</summary>
+    private static string Clip(string text) => text.Length <= 40 ? text : text[..40] + "…";
 }

@@ -40,8 +40,9 @@ public static class CsvTraceWriter
         {
             line.Clear();
             double t = table.Times[r];
-            // Microsecond resolution for the run time; the clock column to the millisecond.
-            line.Append(t.ToString("0.######", inv)).Append(',');
+            // The run time exactly (round trip: a row 1 ns after a switching edge keeps its own time); the clock column to
+            // the millisecond.
+            line.Append(t.ToString("R", inv)).Append(',');
             line.Append(ClockTime.At(table.Origin, table.TimeZone, t).ToString("yyyy-MM-dd'T'HH:mm:ss.fffzzz", inv));
             for (int c = 0; c < table.Columns.Count; c++)
             {

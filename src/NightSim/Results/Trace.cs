@@ -1,18 +1,29 @@
 namespace NightSim.Results;
 
 /// <summary>
-/// The recorded waveform of one unknown: (time, value) points in time order. Long runs are decimated per time bucket
-/// to the bucket's minimum and maximum (in time order), so no spike is lost; short runs keep every accepted point.
+/// The recorded waveform of one unknown. <see cref="Times"/>/<see cref="Values"/> are accepted points of the solver
+/// (decimated by time in long runs, switching edges and breakpoints always kept; every trace of a run has the same
+/// times). <see cref="EnvelopeTimes"/>/<see cref="EnvelopeValues"/> keep each time bucket's minimum and maximum point
+/// (in time order), so no spike is lost: plots and <see cref="Min"/>/<see cref="Max"/> use them.
 /// </summary>
 public sealed class Trace
 {
-    internal Trace(string name, string unit, double[] times, double[] values, int count)
+    internal Trace(string name, string unit, double[] times, double[] values, int count,
+        double[] envelopeTimes, double[] envelopeValues, int envelopeCount)
     {
         Name = name;
         Unit = unit;
         Times = times.AsSpan(0, count).ToArray();
         Values = values.AsSpan(0, count).ToArray();
+        EnvelopeTimes = envelopeTimes.AsSpan(0, envelopeCount).ToArray();
+        EnvelopeValues = envelopeValues.AsSpan(0, envelopeCount).ToArray();
     }
+
+    /// <summary>Times of the envelope points (each bucket's minimum and maximum), seconds.</summary>
+    public IReadOnlyList<double> EnvelopeTimes { get; }
+
+    /// <summary>Values of the envelope points in <see cref="Unit"/>.</summary>
+    public IReadOnlyList<double> EnvelopeValues { get; }
 
     /// <summary>Node name or branch label.</summary>
     public string Name { get; }
@@ -20,7 +31,7 @@ public sealed class Trace
     /// <summary>"V" for voltages, "A" for branch currents.</summary>
     public string Unit { get; }
 
-    /// <summary>Point times, seconds since the run origin.</summary>
+    /// <summary>Times of the accepted points kept, seconds since the run origin.</summary>
     public IReadOnlyList<double> Times { get; }
 
     /// <summary>Point values in <see cref="Unit"/>.</summary>
@@ -43,9 +54,9 @@ public sealed class Trace
         return t1 > t0 ? Values[lo] + (Values[hi] - Values[lo]) * (time - t0) / (t1 - t0) : Values[hi];
     }
 
-    /// <summary>Largest value.</summary>
-    public double Max => Values.Count == 0 ? double.NaN : Values.Max();
+    /// <summary>Largest value at any accepted point.</summary>
+    public double Max => EnvelopeValues.Count == 0 ? double.NaN : Math.Max(EnvelopeValues.Max(), Values.Max());
 
-    /// <summary>Smallest value.</summary>
-    public double Min => Values.Count == 0 ? double.NaN : Values.Min();
+    /// <summary>Smallest value at any accepted point.</summary>
+    public double Min => EnvelopeValues.Count == 0 ? double.NaN : Math.Min(EnvelopeValues.Min(), Values.Min());
 }

@@ -1,13 +1,18 @@
 namespace NightSim.Results;
 
 /// <summary>
-/// Records selected unknowns at every accepted point with min/max decimation per time bucket. All storage is
-/// allocated up front (at most two points per bucket and signal), so recording allocates nothing in the step loop.
+/// Records selected unknowns at accepted points, in two stores:
+/// <list type="bullet">
+/// <item>Rows: accepted points as the solver computed them, every signal at the same time. Decimated by time: a point
+/// is kept when at least duration/bucketCount has passed since the last kept row, and always when the solver marks it
+/// (a switching event, the first point after it, a landed breakpoint), together with the accepted point just before
+/// such a marked one, and the final point. No row is ever interpolated or mixed from different times.</item>
+/// <item>Envelope: per signal and time bucket (width duration/bucketCount) the minimum and maximum point, in time order,
+/// so no spike is lost in plots and in <see cref="Trace.Min"/>/<see cref="Trace.Max"/>.</item>
+/// </list>
+/// Storage is allocated up front; the row store doubles only if marked points outnumber its reserve (a chattering
+/// relay), so steady stepping allocates nothing.
 /// </summary>
-/// <remarks>
-/// Buckets have width duration/bucketCount. While a bucket holds at most two points they are kept as they are;
-/// from the third point on the bucket keeps only its minimum and maximum point, in time order.
-/// </remarks>
 public sealed class TraceRecorder
 {
     private readonly int[] _indices;
@@ -22,6 +27,14 @@ public sealed class TraceRecorder
     private readonly int[] _bucketStart; // index of the first point of the current bucket, per signal
     private readonly int[] _bucketPoints; // points seen in the current bucket, per signal
     private long _currentBucket = -1;
+
+    private double[] _rowTimes;
+    private double[][] _rowValues; // per signal
+    private int _rows;
+    private double _lastRowTime = double.NegativeInfinity;
+    private readonly double[] _pendingValues;
+    private double _pendingTime;
+    private bool _hasPending;
 
     /// <param name="indices">Unknown indices to record.</param>
     /// <param name="names">Their names.</param>
@@ -45,13 +58,58 @@ public sealed class TraceRecorder
             _times[s] = new double[capacity];
             _values[s] = new double[capacity];
         }
+        int rowCapacity = _buckets + 4 + RowReserve;
+        _rowTimes = new double[rowCapacity];
+        _rowValues = new double[_indices.Length][];
+        for (int s = 0; s < _indices.Length; s++) _rowValues[s] = new double[rowCapacity];
+        _pendingValues = new double[_indices.Length];
         _count = new int[_indices.Length];
         _bucketStart = new int[_indices.Length];
         _bucketPoints = new int[_indices.Length];
     }
 
+    /// <summary>Rows reserved beyond one per bucket for marked points (switching edges, breakpoints).</summary>
+    public const int RowReserve = 4096;
+
     /// <summary>Record the solution <paramref name="x"/> at <paramref name="time"/> (non-decreasing).</summary>
-    public void Record(double time, ReadOnlySpan<double> x)
+    /// <param name="time">Time of the accepted point, s.</param>
+    /// <param name="x">The solution.</param>
+    /// <param name="keep">True to keep this point as a row whatever the decimation (a switching edge, a breakpoint).</param>
+    public void Record(double time, ReadOnlySpan<double> x, bool keep = false)
+    {
+        RecordRow(time, x, keep);
+        RecordEnvelope(time, x);
+    }
+
+    private void RecordRow(double time, ReadOnlySpan<double> x, bool keep)
+    {
+        if (keep || _rows == 0 || time - _lastRowTime >= _width)
+        {
+            if (keep && _hasPending) AppendRow(_pendingTime, _pendingValues);
+            _hasPending = false;
+            for (int s = 0; s < _indices.Length; s++) _pendingValues[s] = _indices[s] >= 0 ? x[_indices[s]] : 0.0;
+            AppendRow(time, _pendingValues);
+            return;
+        }
+        _pendingTime = time;
+        for (int s = 0; s < _indices.Length; s++) _pendingValues[s] = _indices[s] >= 0 ? x[_indices[s]] : 0.0;
+        _hasPending = true;
+    }
+
+    private void AppendRow(double time, double[] values)
+    {
+        if (_rows == _rowTimes.Length)
+        {
+            Array.Resize(ref _rowTimes, 2 * _rowTimes.Length);
+            for (int s = 0; s < _rowValues.Length; s++) Array.Resize(ref _rowValues[s], _rowTimes.Length);
+        }
+        _rowTimes[_rows] = time;
+        for (int s = 0; s < values.Length; s++) _rowValues[s][_rows] = values[s];
+        _rows++;
+        _lastRowTime = time;
+    }
+
+    private void RecordEnvelope(double time, ReadOnlySpan<double> x)
     {
         long bucket = (long)Math.Floor((time - _start) / _width);
         if (bucket >= _buckets) bucket = _buckets - 1;
@@ -94,11 +152,17 @@ public sealed class TraceRecorder
         }
     }
 
-    /// <summary>The recorded traces.</summary>
+    /// <summary>The recorded traces (the last accepted point is always a row).</summary>
     public IReadOnlyList<Trace> Build()
     {
+        if (_hasPending)
+        {
+            AppendRow(_pendingTime, _pendingValues);
+            _hasPending = false;
+        }
         var traces = new Trace[_indices.Length];
-        for (int s = 0; s < traces.Length; s++) traces[s] = new Trace(_names[s], _units[s], _times[s], _values[s], _count[s]);
+        for (int s = 0; s < traces.Length; s++)
+            traces[s] = new Trace(_names[s], _units[s], _rowTimes, _rowValues[s], _rows, _times[s], _values[s], _count[s]);
         return traces;
     }
 }

@@ -253,13 +253,14 @@ public static class NightTraces
 
     private static PlotSeries Slice(Trace tr, double from, double to, string title)
     {
+        // The envelope (each bucket's minimum and maximum), so no spike between kept rows is lost in the plot.
         var ts = new List<double>();
         var vs = new List<double>();
-        for (int i = 0; i < tr.Times.Count; i++)
+        for (int i = 0; i < tr.EnvelopeTimes.Count; i++)
         {
-            if (tr.Times[i] < from || tr.Times[i] > to) continue;
-            ts.Add(tr.Times[i]);
-            vs.Add(tr.Values[i]);
+            if (tr.EnvelopeTimes[i] < from || tr.EnvelopeTimes[i] > to) continue;
+            ts.Add(tr.EnvelopeTimes[i]);
+            vs.Add(tr.EnvelopeValues[i]);
         }
         (double[] t, double[] v) = Thin(ts, vs, from, to);
         return new PlotSeries(title, tr.Unit, PlotPanel.Voltages, t, v);

@@ -1,5 +1,6 @@
 using NightSim.Analysis;
 using NightSim.Devices;
+using NightSim.Devices.Light;
 using NightSim.Devices.Roles;
 using NightSim.Netlist;
 using NightSim.Results;
@@ -33,7 +34,17 @@ public static class RunFactsBuilder
             }
         }
 
-        double lag = devices.Select(d => d.Role).OfType<LightSensorRole>().Select(r => r.LagSeconds).DefaultIfEmpty(0).Max();
+        // A switch-on is blamed on a darkening edge up to five of the sensor's fall time constants after it, at the
+        // light level after the edge (a slow cell in the dark can take minutes to see the new dusk), and never less
+        // than 30 s (the trigger network).
+        var sensors = devices.OfType<ILightSensor>().ToList();
+        double LagAt(double t)
+        {
+            double slowest = 0;
+            foreach (ILightSensor s in sensors)
+                slowest = Math.Max(slowest, s.FallTimeConstant((lux?.Invoke(t) ?? 0) * s.Light.Gain));
+            return Math.Max(30.0, 5 * slowest);
+        }
         return new RunFacts
         {
             Origin = profile?.Origin ?? PlainOrigin,
@@ -51,7 +62,8 @@ public static class RunFactsBuilder
             SkyLux = lux,
             SensorLux = lux,
             LampCouplingLux = profile?.LampCouplings.Sum(c => c.Lux) ?? 0,
-            AttributionLag = Math.Max(30.0, 5 * lag),
+            AttributionLag = LagAt(0),
+            AttributionLagAt = LagAt,
         };
     }
 

@@ -3,8 +3,11 @@ namespace NightSim.Sky;
 /// <summary>
 /// Horizontal illuminance from the Sun against solar elevation: the model of U.S. Naval Observatory Circular No. 171
 /// (Janiczek &amp; DeYoung, 1987), which covers daylight and twilight. Sky factor: 1 clear, 2 thin cloud, 3 average
-/// cloud, 10 dark stratus (same source). The model switches its refraction term at −5/6° and is therefore
-/// discontinuous there (≈ 34 % step): never compare values exactly at that elevation.
+/// cloud, 10 dark stratus (same source). The published model switches its refraction term at −5/6° and steps there
+/// (≈ 34 %, e.g. 662 → 436 lx), which no sky does; here the day branch (with refraction) and the twilight branch
+/// (without) are joined by a geometric blend over <see cref="BlendLowElevation"/>…<see cref="BlendHighElevation"/>
+/// (−1° … −2/3°, ±1/6° around the switch) with a smoothstep weight, so the curve is continuous with a continuous
+/// slope. Outside the band each branch is the published model unchanged (its table values at 0° and −1° hold).
 /// </summary>
 public static class IlluminanceModel
 {
@@ -14,16 +17,38 @@ public static class IlluminanceModel
     /// <summary>Solar constant term of the model, lux.</summary>
     public const double SolarTermLux = 133775.0;
 
-    /// <summary>Elevation at which the model switches its refraction term, degrees (−5/6°).</summary>
+    /// <summary>Elevation at which the published model switches its refraction term, degrees (−5/6°).</summary>
     public const double RefractionSwitchElevation = -5.0 / 6.0;
+
+    /// <summary>Lower edge of the band joining the two branches, degrees: below it, the twilight branch alone.</summary>
+    public const double BlendLowElevation = -1.0;
+
+    /// <summary>Upper edge of the band joining the two branches, degrees: above it, the day branch alone.</summary>
+    public const double BlendHighElevation = -2.0 / 3.0;
 
     /// <summary>Illuminance from the Sun alone, lux, for geometric elevation <paramref name="elevation"/> (degrees).</summary>
     /// <param name="skyFactor">1 clear … 10 dark stratus; must be ≥ 1 (values below are allowed but unphysical).</param>
     public static double SunLux(double elevation, double skyFactor = 1.0)
     {
+        double h = elevation;
+        if (h <= BlendLowElevation) return Branch(h, refraction: false, skyFactor);
+        if (h >= BlendHighElevation) return Branch(h, refraction: true, skyFactor);
+        // Geometric blend with a smoothstep weight: continuous value and slope at both band edges, increasing
+        // throughout because the day branch lies above the twilight branch inside the band.
+        double twilight = Branch(h, refraction: false, skyFactor), day = Branch(h, refraction: true, skyFactor);
+        if (!(twilight > 0) || !(day > 0)) return Math.Max(twilight, day);
+        double u = (h - BlendLowElevation) / (BlendHighElevation - BlendLowElevation);
+        double w = u * u * (3.0 - 2.0 * u);
+        return Math.Exp((1.0 - w) * Math.Log(twilight) + w * Math.Log(day));
+    }
+
+    /// <summary>One branch of the published model: with the refraction term (day, valid above −5/6°) or without
+    /// (twilight, valid below), lux.</summary>
+    public static double Branch(double elevation, bool refraction, double skyFactor = 1.0)
+    {
         const double deg = Math.PI / 180.0;
         double h = elevation;
-        double ha = h < RefractionSwitchElevation ? h : h + 1.0 / (60.0 * Math.Tan((h + 8.6 / (h + 4.42)) * deg));
+        double ha = refraction ? h + 1.0 / (60.0 * Math.Tan((h + 8.6 / (h + 4.42)) * deg)) : h;
         double har = ha * deg;
         double u = Math.Sin(har);
         const double x = 753.66156;

@@ -1,5 +1,5 @@
-using System.Text;
 using System.Text.Json;
+using NightSim.Text;
 
 namespace NightSim.Sky;
 
@@ -15,8 +15,7 @@ public sealed class JsonLocator
     public JsonLocator(byte[] utf8)
     {
         ArgumentNullException.ThrowIfNull(utf8);
-        var lineStarts = new List<int> { 0 };
-        for (int i = 0; i < utf8.Length; i++) if (utf8[i] == (byte)'\n') lineStarts.Add(i + 1);
+        var positions = new Utf8Positions(utf8);
         var options = new JsonReaderOptions { CommentHandling = JsonCommentHandling.Skip, AllowTrailingCommas = true };
         var reader = new Utf8JsonReader(utf8, options);
         // Stack of containers: path and, for arrays, the next index.
@@ -49,10 +48,7 @@ public sealed class JsonLocator
                     }
                     else path = $"{top.Path}.{pendingProperty}";
                 }
-                int offset = (int)reader.TokenStartIndex;
-                int line = UpperBound(lineStarts, offset);
-                int column = Encoding.UTF8.GetCharCount(utf8, lineStarts[line - 1], offset - lineStarts[line - 1]) + 1;
-                _positions.TryAdd(path, (line, column));
+                _positions.TryAdd(path, positions.At(reader.TokenStartIndex));
                 if (tt is JsonTokenType.StartObject) stack.Add((path, false, 0));
                 else if (tt is JsonTokenType.StartArray) stack.Add((path, true, 0));
             }
@@ -61,17 +57,6 @@ public sealed class JsonLocator
         {
             // Partial map; the syntax error itself is reported by the loader.
         }
-    }
-
-    private static int UpperBound(List<int> lineStarts, int offset)
-    {
-        int lo = 0, hi = lineStarts.Count;
-        while (lo < hi)
-        {
-            int mid = (lo + hi) / 2;
-            if (lineStarts[mid] <= offset) lo = mid + 1; else hi = mid;
-        }
-        return lo; // number of line starts ≤ offset = 1-based line
     }
 
     /// <summary>Position of the value at <paramref name="path"/>, or of its nearest enclosing value; (0, 0) if unknown.</summary>

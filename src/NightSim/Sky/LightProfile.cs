@@ -52,12 +52,16 @@ public sealed class LightProfile : ILightSignal
         Weather w = scenario.Weather;
         _skyFactor = w.SkyFactor;
         // ln of the model's Sun term on the same grid: Lux interpolates it (relative error ≪ 1e-4 over 30 s); the
-        // intervals holding the model's −5/6° step are evaluated exactly so the step stays a step.
+        // intervals touching the band that joins the day and twilight branches (curved over a third of a degree) are
+        // evaluated exactly.
         _logSunLux = new double[n + 1];
         _exactInterval = new bool[n];
         for (int i = 0; i <= n; i++) _logSunLux[i] = Math.Log(Math.Max(IlluminanceModel.SunLux(_elevation[i], _skyFactor), 1e-300));
         for (int i = 0; i < n; i++)
-            _exactInterval[i] = (_elevation[i] < IlluminanceModel.RefractionSwitchElevation) != (_elevation[i + 1] < IlluminanceModel.RefractionSwitchElevation);
+        {
+            double lo = Math.Min(_elevation[i], _elevation[i + 1]), hi = Math.Max(_elevation[i], _elevation[i + 1]);
+            _exactInterval[i] = hi >= IlluminanceModel.BlendLowElevation && lo <= IlluminanceModel.BlendHighElevation;
+        }
         _nightLux = (IlluminanceModel.ClearNightFloorLux + w.MoonLux) / w.SkyFactor;
         if (w.ModeledMoon)
         {
@@ -109,15 +113,10 @@ public sealed class LightProfile : ILightSignal
         _logReplace = scenario.LightLogMode == LightLogMode.Replace;
         _logAtSensor = scenario.LightLogAtSensor;
 
-        // Breakpoints: event edges, log samples, and the model's step at −5/6° elevation.
+        // Breakpoints: event edges, log samples, noise pulses (the sky itself is continuous).
         var bp = new List<double>();
         foreach (ILightEvent e in LightEvents) e.AddBreakpoints(bp);
         bp.AddRange(_logTimes);
-        for (int i = 0; i < n; i++)
-        {
-            double a = _elevation[i] - IlluminanceModel.RefractionSwitchElevation, b = _elevation[i + 1] - IlluminanceModel.RefractionSwitchElevation;
-            if ((a < 0) != (b < 0)) bp.Add(RefineSwitch(i, jd0));
-        }
         foreach (NoiseInjection p in NoiseInjections) { bp.Add(p.Time); bp.Add(p.Time + p.Width); }
         bp.Sort();
         var unique = new List<double>(bp.Count);
@@ -132,19 +131,6 @@ public sealed class LightProfile : ILightSignal
         ScheduledEvents = [.. scheduled.OrderBy(s => s.StartSeconds).ThenBy(s => s.Kind, StringComparer.Ordinal)];
 
         SolarEvents = [.. Enumerable.Range(0, scenario.Nights).Select(k => Twilight.ForNight(site, scenario.Start.AddDays(k)))];
-    }
-
-    private double RefineSwitch(int i, double jd0)
-    {
-        double lo = i * _gridStep, hi = lo + _gridStep;
-        bool loBelow = _elevation[i] < IlluminanceModel.RefractionSwitchElevation;
-        for (int k = 0; k < 40; k++)
-        {
-            double mid = 0.5 * (lo + hi);
-            bool below = SunPosition.Elevation(jd0 + mid / 86400.0, Scenario.Site.Latitude, Scenario.Site.Longitude) < IlluminanceModel.RefractionSwitchElevation;
-            if (below == loBelow) lo = mid; else hi = mid;
-        }
-        return 0.5 * (lo + hi);
     }
 
     /// <summary>Builds the profile (all random draws happen here).</summary>

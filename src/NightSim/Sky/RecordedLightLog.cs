@@ -46,6 +46,13 @@ public sealed class RecordedLightLog
         var lux = new List<double>();
         var lines = new List<int>();
         string[] rows = text.Split('\n');
+        if (rows.Length > InputLimits.MaxLightLogRows)
+        {
+            errors = [new ScenarioError(fileName, "line " + (InputLimits.MaxLightLogRows + 1).ToString(CultureInfo.InvariantCulture),
+                $"the light log has {rows.Length} lines, more than the limit of {InputLimits.MaxLightLogRows} rows",
+                "thin the log (one row a minute is plenty) or split it", InputLimits.MaxLightLogRows + 1, 1)];
+            return null;
+        }
         bool firstContent = true;
         for (int i = 0; i < rows.Length; i++)
         {

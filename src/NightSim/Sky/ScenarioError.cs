@@ -10,12 +10,12 @@ namespace NightSim.Sky;
 /// <param name="Column">1-based column, or 0 when unknown.</param>
 public sealed record ScenarioError(string File, string Path, string Message, string? Hint = null, int Line = 0, int Column = 0)
 {
-    /// <summary>"file:line:column: path: message (hint: …)".</summary>
+    /// <summary>"file:line:column: error at path: message. hint: …" (the file as given, as netlist errors are).</summary>
     public override string ToString()
     {
         string where = Line > 0 ? $"{File}:{Line}:{Column}" : File;
-        string hint = string.IsNullOrEmpty(Hint) ? "" : $" (hint: {Hint})";
-        return $"{where}: {Path}: {Message}{hint}";
+        string hint = string.IsNullOrEmpty(Hint) ? "" : $". hint: {Hint}";
+        return $"{where}: error at {Path}: {Message}{hint}";
     }
 }
 

@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using NightSim.Sky.Events;
+using NightSim.Text;
 
 namespace NightSim.Sky;
 
@@ -12,21 +13,30 @@ namespace NightSim.Sky;
 /// </summary>
 public static class ScenarioLoader
 {
+    /// <summary>Shortest event length accepted in minutes (one second): shorter passes only multiply breakpoints.</summary>
+    public const double MinEventMinutes = 1.0 / 60.0;
+
     private static readonly string[] s_topLevel =
         ["$schema", "name", "description", "site", "start", "nights", "seed", "sensor", "channels", "weather", "events", "lightLog", "targets", "weatherMix"];
 
     /// <summary>Loads <paramref name="path"/>; the scenario or null with the errors.</summary>
     public static LightScenario? Load(string path, out IReadOnlyList<ScenarioError> errors, LightEventCatalog? catalog = null)
     {
-        string name = Path.GetFileName(path);
-        byte[] bytes;
+        string name = path;
+        byte[]? bytes;
+        string? tooBig;
         try
         {
-            bytes = File.ReadAllBytes(path);
+            bytes = Utf8Check.ReadBounded(path, InputLimits.MaxInputBytes, out tooBig);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            errors = [new ScenarioError(path, "$", $"cannot read the file: {ex.Message}", "check the path")];
+            errors = [new ScenarioError(path, "$", $"cannot read the file: {ex.Message.TrimEnd('.')}", "check the path")];
+            return null;
+        }
+        if (bytes is null)
+        {
+            errors = [new ScenarioError(path, "$", "the file " + tooBig, "give a scenario JSON file; an input file may hold at most 64 MB")];
             return null;
         }
         string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? Directory.GetCurrentDirectory();
@@ -48,6 +58,11 @@ public static class ScenarioLoader
         LightEventCatalog? catalog, string? sourceFile)
     {
         catalog ??= LightEventCatalog.Default;
+        if (Utf8Check.Problem(utf8) is { } bad)
+        {
+            errors = [new ScenarioError(fileName, "$", bad.Message, bad.Hint, bad.Line, bad.Column)];
+            return null;
+        }
         var locator = new JsonLocator(utf8);
         var ctx = new ScenarioParseContext(fileName, locator, baseDirectory);
         JsonDocument doc;
@@ -60,7 +75,13 @@ public static class ScenarioLoader
         catch (JsonException ex)
         {
             int line = (int)(ex.LineNumber ?? -1) + 1, col = (int)(ex.BytePositionInLine ?? -1) + 1;
-            errors = [new ScenarioError(fileName, "$", $"not valid JSON: {FirstSentence(ex.Message)}", "check brackets, commas and quotes near this place", line, col)];
+            string what = FirstSentence(ex.Message);
+            int cut = what.IndexOf(" LineNumber:", StringComparison.Ordinal);
+            if (cut > 0) what = what[..cut].TrimEnd('.', ' ');
+            bool early = what.Contains("end of data", StringComparison.Ordinal) || what.Contains("depth to be zero", StringComparison.Ordinal);
+            errors = [new ScenarioError(fileName, "$", $"not valid JSON: {what}",
+                early ? "the file ends before the JSON does: is it complete (cut short while copying or saving)? else check the closing brackets"
+                      : "check brackets, commas and quotes near this place", line, col)];
             return null;
         }
         using (doc)
@@ -81,8 +102,8 @@ public static class ScenarioLoader
     {
         if (!ctx.ExpectObject(root, "$")) return null;
         ctx.CheckProperties(root, "$", s_topLevel);
-        string name = ctx.String(root, "$", "name") ?? Path.GetFileNameWithoutExtension(ctx.FileName);
-        string description = ctx.String(root, "$", "description") ?? "";
+        string name = DisplayText.Clean(ctx.String(root, "$", "name") ?? Path.GetFileNameWithoutExtension(ctx.FileName));
+        string description = DisplayText.Clean(ctx.String(root, "$", "description") ?? "");
 
         Site? site = ReadSite(root, ctx);
 
@@ -90,7 +111,7 @@ public static class ScenarioLoader
         string? startText = ctx.String(root, "$", "start", required: true);
         if (startText is not null && !DateOnly.TryParseExact(startText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out start))
             ctx.Error("$.start", $"\"{startText}\" is not a date", "write the date of the first night as \"YYYY-MM-DD\"");
-        int nights = (int)(ctx.Integer(root, "$", "nights", min: 1, max: 3660) ?? 1);
+        int nights = (int)(ctx.Integer(root, "$", "nights", min: 1, max: InputLimits.MaxNights) ?? 1);
         long? seedValue = ctx.Integer(root, "$", "seed", min: 0);
         ulong seed = seedValue is long sv ? (ulong)sv : LightScenario.DefaultSeed;
 
@@ -148,9 +169,27 @@ public static class ScenarioLoader
                 if (!File.Exists(full)) ctx.Error("$.lightLog.file", $"light log \"{file}\" not found", $"looked in {ctx.BaseDirectory}; paths are relative to the scenario file");
                 else
                 {
-                    log = RecordedLightLog.Parse(File.ReadAllText(full), file, site.TimeZone, tzText == "utc", out var logErrors);
-                    ctx.AddRange(logErrors);
-                    if (log is not null) warnings.AddRange(log.Warnings);
+                    byte[]? logBytes = null;
+                    string? logProblem;
+                    try
+                    {
+                        logBytes = Utf8Check.ReadBounded(full, InputLimits.MaxLightLogBytes, out logProblem);
+                    }
+                    catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+                    {
+                        logProblem = "cannot be read: " + ex.Message.TrimEnd('.');
+                    }
+                    Utf8Check.Finding? badText = logBytes is null ? null : Utf8Check.Problem(logBytes);
+                    if (logBytes is null)
+                        ctx.Error("$.lightLog.file", $"light log \"{file}\" {logProblem}", "a light log is a regular CSV file of at most 64 MB and 1 000 000 rows");
+                    else if (badText is not null)
+                        ctx.AddRange([new ScenarioError(file, "$", badText.Message, badText.Hint, badText.Line, badText.Column)]);
+                    else
+                    {
+                        log = RecordedLightLog.Parse(Utf8Check.Decode(logBytes), file, site.TimeZone, tzText == "utc", out var logErrors);
+                        ctx.AddRange(logErrors);
+                        if (log is not null) warnings.AddRange(log.Warnings);
+                    }
                 }
             }
         }
@@ -177,7 +216,7 @@ public static class ScenarioLoader
         }
         if (!ctx.ExpectObject(s, "$.site")) return null;
         ctx.CheckProperties(s, "$.site", "name", "latitude", "longitude", "timeZone", "elevation");
-        string siteName = ctx.String(s, "$.site", "name") ?? "site";
+        string siteName = DisplayText.Clean(ctx.String(s, "$.site", "name") ?? "site");
         double? lat = ctx.Number(s, "$.site", "latitude", "deg", required: true, min: -90, max: 90);
         double? lon = ctx.Number(s, "$.site", "longitude", "deg", required: true, min: -180, max: 180);
         double elevation = ctx.Number(s, "$.site", "elevation", null) ?? 0.0;
@@ -224,7 +263,7 @@ public static class ScenarioLoader
         if (w.TryGetProperty("sky", out JsonElement sk))
         {
             if (sk.ValueKind == JsonValueKind.String && !double.IsNaN(Weather.NamedSkyFactor(sk.GetString()!))) sky = Weather.NamedSkyFactor(sk.GetString()!);
-            else if (sk.ValueKind == JsonValueKind.Number && sk.GetDouble() >= 1.0) sky = sk.GetDouble();
+            else if (sk.ValueKind == JsonValueKind.Number && sk.TryGetDouble(out double factor) && double.IsFinite(factor) && factor >= 1.0) sky = factor;
             else ctx.Error("$.weather.sky", $"{ScenarioParseContext.Describe(sk)} is not a sky", "write \"clear\", \"thin\", \"cloudy\", \"overcast\" or a factor ≥ 1 (10 = dark stratus)");
         }
         CloudDefinition? clouds = null;
@@ -233,7 +272,13 @@ public static class ScenarioLoader
             ctx.CheckProperties(c, "$.weather.clouds", "perHour", "depth", "minutes");
             double? perHour = ctx.Number(c, "$.weather.clouds", "perHour", null, required: true, min: 0);
             double depth = ctx.Number(c, "$.weather.clouds", "depth", null, min: 0, max: 1) ?? 0.5;
-            double minutes = ctx.Number(c, "$.weather.clouds", "minutes", null, min: 0, minExclusive: true) ?? 10.0;
+            double minutes = ctx.Number(c, "$.weather.clouds", "minutes", null, min: MinEventMinutes, max: 24 * 60) ?? 10.0;
+            if (perHour is not null && perHour.Value * 24 > InputLimits.MaxEventsPerNight)
+            {
+                ctx.Error("$.weather.clouds.perHour", $"{perHour.Value.ToString("G4", CultureInfo.InvariantCulture)} clouds per hour would be more than the limit of {InputLimits.MaxEventsPerNight} events per night",
+                    "passing clouds come a few to a few dozen per hour, e.g. \"perHour\": 6");
+                perHour = null;
+            }
             if (perHour is not null) clouds = new CloudDefinition(perHour.Value, depth, minutes);
         }
         bool modeledMoon = false;

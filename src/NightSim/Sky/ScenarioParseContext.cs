@@ -70,7 +70,14 @@ public sealed class ScenarioParseContext
             return null;
         }
         double value;
-        if (v.ValueKind == JsonValueKind.Number) value = v.GetDouble();
+        if (v.ValueKind == JsonValueKind.Number)
+        {
+            if (!v.TryGetDouble(out value) || !double.IsFinite(value))
+            {
+                Error(p, $"{Clip(v.GetRawText())} is too large to be a number (beyond ±1.8e308)", "check the exponent");
+                return null;
+            }
+        }
         else if (v.ValueKind == JsonValueKind.String)
         {
             if (!EngineeringValue.TryParse(v.GetString(), unit, out value, out string? err))
@@ -203,4 +210,7 @@ public sealed class ScenarioParseContext
     }
 
     private static string F(double x) => x.ToString("G6", CultureInfo.InvariantCulture);
+
+    /// <summary>Long text echoed in a message is cut to its first 40 characters.</summary>
+    private static string Clip(string text) => text.Length <= 40 ? text : text[..40] + "…";
 }

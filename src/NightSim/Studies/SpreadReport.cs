@@ -157,6 +157,7 @@ public sealed record SpreadReport(StudyHeader Header, IReadOnlyList<Variation> V
             .Select(kv => (kv.Key, kv.Value, V: Variations.FirstOrDefault(v => v.Key == kv.Key)))
             .Where(x => x.V is not null && x.V.High > x.V.Low)
             .Select(x => (x.Key, x.Value, x.V!.Unit, Pos: (x.Value - x.V!.Nominal) / Math.Max(x.V.High - x.V.Nominal, x.V.Nominal - x.V.Low)))
+            .Where(x => Math.Abs(x.Pos) > 1e-9)
             .OrderByDescending(x => Math.Abs(x.Pos)).Take(3)
             .Select(x => string.Create(CultureInfo.InvariantCulture, $"{x.Key} {Units.EngineeringValue.Format(x.Value, x.Unit, 3)} ({x.Pos * 100:+0;−0} % of band)"));
         string s = string.Join(", ", far);

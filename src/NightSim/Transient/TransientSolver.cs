@@ -226,7 +226,7 @@ public sealed partial class TransientSolver
         for (int i = 0; i < _n; i++) _qd[i] = -_ctx.J[i];
         SetTolerances();
         if (_options.Start == StartMode.PowerUp) _needRestart = !AlgebraicRowsSatisfied();
-        RecordPoint();
+        RecordPoint(keepRow: true);
         EvaluateEvents(_x, 0.0, _gNew, _gOld);
         Array.Copy(_gNew, _gOld, _gOld.Length);
         _h = _options.FixedStep ?? _options.RestartStep;
@@ -372,7 +372,7 @@ public sealed partial class TransientSolver
             }
 
             _opGmin = 0; // a temporary shunt lasts one accepted step
-            Commit(t, h, landing ? bp : double.NaN, restart);
+            Commit(t, h, landing ? bp : double.NaN, restart, keepRow: fired || landing || restart);
             StepEnd end = StepEnd.Smooth;
             if (fired)
             {
@@ -436,7 +436,7 @@ public sealed partial class TransientSolver
     }
 
     /// <summary>Make the point (t + h) the accepted point.</summary>
-    private void Commit(double t, double h, double landAt, bool restart)
+    private void Commit(double t, double h, double landAt, bool restart, bool keepRow)
     {
         if (_havePrev || restart)
         {
@@ -459,7 +459,7 @@ public sealed partial class TransientSolver
         _ctx.Time = tNow;
         _ctx.SourceScale = SourceScaleAt(tNow);
         foreach (Device d in _devices) d.Accept(_ctx);
-        RecordPoint();
+        RecordPoint(keepRow);
         if (_eventSource.Length > 0)
         {
             EvaluateEvents(_x, tNow, _gNew, _gOld);
@@ -468,7 +468,7 @@ public sealed partial class TransientSolver
         Accepted?.Invoke(this);
     }
 
-    private void RecordPoint() => _recorder?.Record(_time.Value, _x);
+    private void RecordPoint(bool keepRow) => _recorder?.Record(_time.Value, _x, keepRow);
 
     // ---------------------------------------------------------------- integration formulas
 

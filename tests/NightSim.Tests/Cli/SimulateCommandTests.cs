@@ -56,11 +56,33 @@ public sealed class SimulateCommandTests
     }
 
     [Fact]
-    public void Bad_Duration_Exits_2_And_Writes_Nothing()
+    public void Lux_Warns_For_Sensors_With_Their_Own_Light_And_Without_Sensors()
+    {
+        string dir = TempDir();
+        try
+        {
+            // dusk-timer-ramp.json: LDR1 has its own luxPoints, so --lux cannot reach it.
+            (int exit, _, string error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "dusk-timer-ramp.json"), "--for", "10ms", "--lux", "50", "--out", dir);
+            Assert.True(exit == 0, error);
+            Assert.Contains("warning: --lux does not apply to LDR1", error, StringComparison.Ordinal);
+            (exit, _, error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "rc-step.json"), "--for", "10ms", "--lux", "50", "--out", dir);
+            Assert.True(exit == 0, error);
+            Assert.Contains("--lux has no effect", error, StringComparison.Ordinal);
+            (exit, _, error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "rc-step.json"), "--for", "10ms", "--out", dir);
+            Assert.DoesNotContain("--lux", error, StringComparison.Ordinal);
+        }
+        finally
+        {
+            if (Directory.Exists(dir)) Directory.Delete(dir, recursive: true);
+        }
+    }
+
+    [Fact]
+    public void Bad_Duration_Exits_1_And_Writes_Nothing()
     {
         string dir = TempDir();
         (int exit, _, string error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "rc-step.json"), "--for", "5m", "--out", dir);
-        Assert.Equal(2, exit);
+        Assert.Equal(1, exit);
         Assert.Contains("ambiguous", error, StringComparison.Ordinal);
         Assert.False(Directory.Exists(dir));
     }
@@ -77,10 +99,10 @@ public sealed class SimulateCommandTests
     }
 
     [Fact]
-    public void Unknown_Node_Exits_2_Naming_The_Known_Nodes()
+    public void Unknown_Node_Exits_1_Naming_The_Known_Nodes()
     {
         (int exit, _, string error) = Run("simulate", Path.Combine(RepoPaths.Netlists, "rc-step.json"), "--for", "1s", "--nodes", "out,nowhere", "--out", TempDir());
-        Assert.Equal(2, exit);
+        Assert.Equal(1, exit);
         Assert.Contains("'nowhere'", error, StringComparison.Ordinal);
         Assert.Contains("in, out", error, StringComparison.Ordinal);
     }

@@ -44,6 +44,16 @@ public sealed class StudyCommandTests
             var m = Run("merge", s1, s2, "--out", merged);
             Assert.True(m.Exit == 0, m.Err);
             AssertSameFiles(whole, merged, "spread.json", "spread.csv", "spread.html", "spread-on-time.svg");
+            Studies.StudySchemas.AssertValid("spread", File.ReadAllBytes(Path.Combine(merged, "spread.json")));
+            // The page is self-contained and well-formed (inline SVG, no scripts, no external files).
+            string page = File.ReadAllText(Path.Combine(merged, "spread.html"));
+            System.Xml.Linq.XDocument.Parse(page.Replace("<!DOCTYPE html>", "", StringComparison.Ordinal));
+            Assert.DoesNotContain("<script", page, StringComparison.Ordinal);
+            Assert.Contains("<svg", page, StringComparison.Ordinal);
+            // The worst runs are written as netlists simulate takes, each with its scenario beside it.
+            string rerun = Directory.GetFiles(Path.Combine(merged, "runs"), "run-*.json").First(f => !f.EndsWith(".scenario.json", StringComparison.Ordinal));
+            var again = Run("simulate", rerun, "--out", Path.Combine(root, "again"), "--no-plots", "--no-progress");
+            Assert.True(again.Exit == 0, again.Err);
 
             // A missing shard is bad input (exit 2) and names what is missing.
             var bad = Run("merge", s1, "--out", Path.Combine(root, "bad"));
@@ -73,6 +83,7 @@ public sealed class StudyCommandTests
             var m = Run("merge", s1, s2, "--out", merged);
             Assert.True(m.Exit == 0, m.Err);
             AssertSameFiles(whole, merged, "sweep.json", "sweep.csv", "sweep.html", "sweep-on-time.svg");
+            Studies.StudySchemas.AssertValid("sweep", File.ReadAllBytes(Path.Combine(merged, "sweep.json")));
 
             var bad = Run("sweep", net, "--vary", "CX.value=1n,2n", "--out", Path.Combine(root, "bad"));
             Assert.Equal(1, bad.Exit);

@@ -72,9 +72,9 @@ public sealed class Timer555Tests
         Assert.All(devices, d => Assert.Equal("U1", d.PartId));
         Assert.Contains("U1.control", devices.SelectMany(d => d.Nodes));   // control pin left out: private node
         Assert.Contains("U1.q", devices.SelectMany(d => d.Nodes));
-        // Bipolar defaults add the input currents (common practice for bipolar 555-class parts): threshold 30 nA, trigger 0.5 µA.
+        // Bipolar defaults add the input currents (typical column, from memory): threshold 0.1 µA, trigger 0.5 µA.
         List<Device> bipolar = Timer([], "bipolar").ToList();
-        Assert.Equal(30e-9, bipolar.OfType<BiasCurrent>().Single(b => b.Name == "U1.threshold-current").Current, 15);
+        Assert.Equal(0.1e-6, bipolar.OfType<BiasCurrent>().Single(b => b.Name == "U1.threshold-current").Current, 15);
         Assert.Equal(0.5e-6, bipolar.OfType<BiasCurrent>().Single(b => b.Name == "U1.trigger-current").Current, 15);
     }
 
@@ -82,12 +82,20 @@ public sealed class Timer555Tests
     public void Effective_Parameters_Follow_The_Variant_Unless_Overridden()
     {
         var bipolar = BlockBench.Part("U1", "timer-555", s_pins, new() { ["triggerCurrent"] = 1e-6 }, new() { ["variant"] = "bipolar" });
-        Assert.Equal(30e-9, Timer555.EffectiveNumber(bipolar, "thresholdCurrent"));
+        Assert.Equal(0.1e-6, Timer555.EffectiveNumber(bipolar, "thresholdCurrent"));
         Assert.Equal(1e-6, Timer555.EffectiveNumber(bipolar, "triggerCurrent"));
         Assert.Equal(1e-6, Timer555.EffectiveNumber(bipolar, "transition"));
-        var cmos = BlockBench.Part("U2", "timer-555", s_pins);
+        var cmos = BlockBench.Part("U2", "timer-555", s_pins, texts: new() { ["variant"] = "cmos" });
         Assert.Equal(10e-12, Timer555.EffectiveNumber(cmos, "thresholdCurrent"));
         Assert.Throws<KeyNotFoundException>(() => Timer555.EffectiveNumber(cmos, "nonsense"));
+        // No variant: bipolar, typical column; the maximum column on request.
+        var plain = BlockBench.Part("U3", "timer-555", s_pins);
+        Assert.Equal(0.1e-6, Timer555.EffectiveNumber(plain, "thresholdCurrent"));
+        Assert.Equal(0.1e-3, Timer555.EffectiveNumber(plain, "resetCurrent"));
+        var worst = BlockBench.Part("U4", "timer-555", s_pins, texts: new() { ["inputCurrents"] = "maximum" });
+        Assert.Equal(0.25e-6, Timer555.EffectiveNumber(worst, "thresholdCurrent"));
+        Assert.Equal(0.9e-6, Timer555.EffectiveNumber(worst, "triggerCurrent"));
+        Assert.Equal(0.4e-3, Timer555.EffectiveNumber(worst, "resetCurrent"));
     }
 
     // One-shot width t_w = ln 3 · R · C (the 555 monostable relation, Horowitz & Hill, The Art of Electronics, 3rd ed., ch. 7), within 0.2 % for an ideal-parameter
@@ -148,7 +156,7 @@ public sealed class Timer555Tests
         Assert.Equal(Math.Log(5.0) * 10.0, reset - set, 10.0 * Math.Log(5.0) * 2e-3);
     }
 
-    // Bipolar defaults (common practice): 30 nA into THRES and ≈ 16 nA of discharge leakage
+    // Bipolar defaults (typical threshold current 0.1 µA, from memory; leakage common practice): 0.1 µA into THRES and ≈ 16 nA of discharge leakage
     // (500 MΩ) drain the timing capacitor: V∞ = (V/R − I)/(1/R + 1/R_L), τ = C·(R ∥ R_L), t = τ·ln(V∞/(V∞ − 2V/3))
     // (textbook RC charging with a constant drain and a leakage resistance, combined by hand) = 110.55 s for 1 MΩ, 100 µF, 12 V.
     [Fact]
@@ -168,10 +176,41 @@ public sealed class Timer555Tests
         SimulationResult r = BlockBench.Run(devices, 200.0);
         var (set, reset) = Pulse(r);
         double g = 1.0 / 1e6 + 1.0 / 500e6;
-        double vInf = (12.0 / 1e6 - 30e-9) / g;
+        double vInf = (12.0 / 1e6 - 0.1e-6) / g;
         double expected = 100e-6 / g * Math.Log(vInf / (vInf - 8.0));
         Assert.Equal(expected, reset - set, expected * 2e-3);
         Assert.True(reset - set > Math.Log(3.0) * 100.0 * 1.005, "the drain must lengthen the pulse beyond ln 3·RC");
+    }
+
+    // The one-shot with the default part (no variant, no overrides: bipolar, typical input currents) against the
+    // closed form with its input currents: the timing capacitor charges through R towards V while the threshold pin
+    // draws I_th and the discharge transistor leaks through R_L, so V∞ = (V/R − I_th)/(1/R + 1/R_L), τ = C·(R ∥ R_L),
+    // t = τ·ln(V∞/(V∞ − 2V/3)) (RC charging with a constant drain, combined by hand; the 555 thresholds at 1/3 and 2/3
+    // of the supply, Horowitz & Hill, The Art of Electronics, 3rd ed., ch. 7). The trigger and reset currents flow into
+    // ideal sources and do not touch the timing. With the maximum column (0.25 µA) the pulse is longer again.
+    [Theory]
+    [InlineData(null, 0.1e-6)]
+    [InlineData("maximum", 0.25e-6)]
+    public void Default_Part_OneShot_Matches_The_Closed_Form_With_Its_Input_Currents(string? column, double thresholdCurrent)
+    {
+        var devices = new List<Device>
+        {
+            BlockBench.Dc("VCC", "vcc", 12.0),
+            BlockBench.Dc("VR", "rst", 12.0),
+            TriggerPulse(12.0, 2e-3, 1e-3),
+            new Resistor("RT", "RT", "vcc", "tc", 1e6),
+            new Capacitor("CT", "CT", "tc", "gnd", 100e-6),
+            new Resistor("RD", "RD", "dis", "tc", 1e-3),
+            new Resistor("RL", "RL", "out", "gnd", 10e3),
+        };
+        var texts = column is null ? null : new Dictionary<string, string> { ["inputCurrents"] = column };
+        devices.AddRange(Timer555.Expand(BlockBench.Part("U1", "timer-555", s_pins, texts: texts)));
+        SimulationResult r = BlockBench.Run(devices, 200.0);
+        var (set, reset) = Pulse(r);
+        double g = 1.0 / 1e6 + 1.0 / 500e6;
+        double vInf = (12.0 / 1e6 - thresholdCurrent) / g;
+        double expected = 100e-6 / g * Math.Log(vInf / (vInf - 8.0));
+        Assert.Equal(expected, reset - set, expected * 2e-3);
     }
 
     // Astable: f = 1.44/((Ra + 2Rb)·C) within 1 % (the 555 astable relation, Horowitz & Hill, The Art of Electronics, 3rd ed., ch. 7); 1 kΩ / 10 kΩ / 100 nF → 685.7 Hz

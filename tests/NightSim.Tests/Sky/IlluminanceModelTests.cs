@@ -50,13 +50,42 @@ public sealed class IlluminanceModelTests
     }
 
     [Fact]
-    public void RefractionSwitch_StepNearMinusFiveSixths_NotAssertedAtTheSwitch()
+    public void BranchJoint_EachBranchMatchesItsPublishedValues()
     {
-        // USNO Circular No. 171 model, computed from its formula (its refraction term starts at −5/6°): E(−0.84°) = 435.7 lx; just above −5/6° the model is ≈ 662 lx (≈ 34 % step).
-        Assert.InRange(IlluminanceModel.SunLux(-0.84), 435.7 * 0.99, 435.7 * 1.01);
-        double above = IlluminanceModel.SunLux(-0.833);
-        Assert.InRange(above, 662 * 0.98, 662 * 1.02);
-        Assert.True(above / IlluminanceModel.SunLux(-0.84) > 1.3);
+        // USNO Circular 171 (Janiczek & DeYoung, 1987), model evaluated from its published formula: the day branch
+        // (refraction term) gives 984.5 lx at 0°, the twilight branch 386.8 lx at −1° and 435.7 lx at −0.84°, and the
+        // day branch ≈ 662 lx just above −5/6°. The joined curve equals each branch outside the band.
+        Assert.InRange(IlluminanceModel.Branch(0, refraction: true), 984.5 * 0.995, 984.5 * 1.005);
+        Assert.InRange(IlluminanceModel.Branch(-0.84, refraction: false), 435.7 * 0.995, 435.7 * 1.005);
+        Assert.InRange(IlluminanceModel.Branch(-0.833, refraction: true), 662 * 0.98, 662 * 1.02);
+        Assert.InRange(IlluminanceModel.Branch(-1, refraction: false), 386.8 * 0.995, 386.8 * 1.005);
+        foreach (double h in new[] { -3.0, -1.5, IlluminanceModel.BlendLowElevation })
+            Assert.Equal(IlluminanceModel.Branch(h, refraction: false), IlluminanceModel.SunLux(h), 12);
+        foreach (double h in new[] { IlluminanceModel.BlendHighElevation, -0.5, 0.0, 5.0 })
+            Assert.Equal(IlluminanceModel.Branch(h, refraction: true), IlluminanceModel.SunLux(h), 12);
+        // Inside the band the joint lies between the two branches.
+        double mid = IlluminanceModel.SunLux(IlluminanceModel.RefractionSwitchElevation);
+        Assert.InRange(mid, IlluminanceModel.Branch(IlluminanceModel.RefractionSwitchElevation, false),
+            IlluminanceModel.Branch(IlluminanceModel.RefractionSwitchElevation, true));
+    }
+
+    [Fact]
+    public void BranchJoint_IsContinuousWithContinuousSlope()
+    {
+        // The published model steps by ≈ 34 % at −5/6° (same source); the joined curve changes by less than 0.05 % per
+        // 0.0001° anywhere from −2° to +1° (a step would show as one large ratio), and its logarithmic slope changes
+        // smoothly (no kink at the band edges: second differences stay small).
+        double prev = IlluminanceModel.SunLux(-2.0), prevSlope = double.NaN;
+        const double dh = 1e-4;
+        for (double h = -2.0 + dh; h <= 1.0; h += dh)
+        {
+            double e = IlluminanceModel.SunLux(h);
+            double slope = Math.Log(e / prev) / dh;
+            Assert.InRange(e / prev, 1.0, 1.0005);
+            if (!double.IsNaN(prevSlope)) Assert.True(Math.Abs(slope - prevSlope) < 0.01, $"slope jumps at {h}°: {prevSlope} → {slope} per degree");
+            prev = e;
+            prevSlope = slope;
+        }
     }
 
     [Fact]

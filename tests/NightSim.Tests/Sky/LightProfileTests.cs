@@ -44,9 +44,8 @@ public sealed class LightProfileTests
         Assert.Equal(0.0005 * 0.3, p.Lux(ch, 12 * 3600), 9);          // midnight: only the model's night floor
         Assert.True(p.Lux(ch, sunset - 600) > p.Lux(ch, sunset + 600));
         Assert.True(p.Lux(ch, sunrise + 600) > p.Lux(ch, sunrise - 600));
-        // The model's −5/6° step is a breakpoint near sunset (the sunset elevation −0.8333° is the same switch).
-        double bp = p.NextBreakpoint(sunset - 120);
-        Assert.InRange(bp, sunset - 5, sunset + 5);
+        // The sky is continuous: without light events there is no breakpoint near sunset.
+        Assert.True(double.IsPositiveInfinity(p.NextBreakpoint(sunset - 120)));
         Assert.True(double.IsPositiveInfinity(p.NextBreakpoint(p.Duration + 10)));
     }
 
@@ -240,9 +239,14 @@ public sealed class LightProfileTests
             double exact = IlluminanceModel.SkyLux(p.SunElevation(t));
             Assert.InRange(p.SkyLux(t), exact * (1 - 1e-3), exact * (1 + 1e-3));
         }
-        // USNO Circular 171 model step at −5/6° (its refraction term starts there): a ≈ 34 % jump across the sunset breakpoint.
+        // Around sunset (the joint of the USNO Circular No. 171 model's two branches at −5/6°) the profile follows the
+        // joined model closely at every second: no step, no interpolation error from the curved joint.
         double sunset = (p.SolarEvents[0].Sunset!.Value - p.Origin).TotalSeconds;
-        double bp = p.NextBreakpoint(sunset - 60);
-        Assert.True(p.SkyLux(bp - 0.01) / p.SkyLux(bp + 0.01) > 1.3);
+        for (double t = sunset - 300; t < sunset + 300; t += 1.0)
+        {
+            double exact = IlluminanceModel.SkyLux(p.SunElevation(t));
+            Assert.InRange(p.SkyLux(t), exact * (1 - 1e-3), exact * (1 + 1e-3));
+            Assert.InRange(p.SkyLux(t + 1.0) / p.SkyLux(t), 0.99, 1.0);
+        }
     }
 }

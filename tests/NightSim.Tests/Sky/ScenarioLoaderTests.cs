@@ -8,10 +8,13 @@ public sealed class ScenarioLoaderTests
     [Fact]
     public void SyntaxError_NamesLineAndColumn()
     {
-        LightScenario? s = ScenarioLoader.Load(SkyTestFiles.Scenario("bad-syntax.scenario.json"), out var errors);
+        string path = SkyTestFiles.Scenario("bad-syntax.scenario.json");
+        LightScenario? s = ScenarioLoader.Load(path, out var errors);
         Assert.Null(s);
         ScenarioError e = Assert.Single(errors);
-        Assert.Equal("bad-syntax.scenario.json", e.File);
+        Assert.Equal(path, e.File); // the path as given, not only the file name
+        Assert.StartsWith($"{path}:4:", e.ToString(), StringComparison.Ordinal);
+        Assert.Contains(": error at $: not valid JSON", e.ToString(), StringComparison.Ordinal);
         Assert.Equal(4, e.Line); // the missing comma after line 3 is detected at "nights" on line 4
         Assert.Contains("not valid JSON", e.Message);
         Assert.NotNull(e.Hint);

@@ -53,13 +53,13 @@ public sealed class SkyCommandTests
     }
 
     [Fact]
-    public void BadInput_Exit2_UsageError_Exit1()
+    public void Bad_Option_Values_Exit_1()
     {
         var (code, _, err) = Run("sky", "--lat", "52", "--lon", "8", "--tz", "Europe/Nowhere", "--date", "2026-12-21");
-        Assert.Equal(2, code);
+        Assert.Equal(1, code);
         Assert.Contains("unknown time zone", err);
-        Assert.Equal(2, Run("sky", "--lat", "95", "--lon", "8", "--tz", "UTC", "--date", "2026-12-21").Code);
-        Assert.Equal(2, Run("sky", "--lat", "52", "--lon", "8", "--tz", "UTC", "--date", "21.12.2026").Code);
+        Assert.Equal(1, Run("sky", "--lat", "95", "--lon", "8", "--tz", "UTC", "--date", "2026-12-21").Code);
+        Assert.Equal(1, Run("sky", "--lat", "52", "--lon", "8", "--tz", "UTC", "--date", "21.12.2026").Code);
         Assert.Equal(1, Run("sky", "--lat", "52", "--lon", "8", "--tz", "UTC", "--date", "2026-12-21", "--format", "xml").Code);
         Assert.Equal(1, Run("sky", "--lon", "8", "--tz", "UTC", "--date", "2026-12-21").Code);
     }
@@ -78,7 +78,7 @@ public sealed class SkyCommandTests
             byte[] head = File.ReadAllBytes(png)[..8];
             Assert.Equal(new byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A }, head); // PNG signature (ISO/IEC 15948)
             Assert.Equal(2, Directory.GetFiles(dir).Length); // no temp files left behind
-            Assert.Equal(2, Run("sky", "--lat", "52.1", "--lon", "8.6", "--tz", "UTC", "--date", "2026-12-21", "--plot", Path.Combine(dir, "x.gif")).Code);
+            Assert.Equal(1, Run("sky", "--lat", "52.1", "--lon", "8.6", "--tz", "UTC", "--date", "2026-12-21", "--plot", Path.Combine(dir, "x.gif")).Code);
         }
         finally
         {

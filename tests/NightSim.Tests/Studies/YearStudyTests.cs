@@ -55,5 +55,6 @@ public sealed class YearStudyTests
         double expected = 12.0 * nights.Sum(n => n.Outcome.OnSeconds!.Value) / 3600.0;
         Assert.Equal(expected, report.EnergyWh, 2);
         Assert.Equal(expected, report.Months().Sum(m => m.EnergyWh), 2);
+        StudySchemas.AssertValid("year", report.Json());
     }
 }

@@ -14,15 +14,19 @@ namespace NightSim.Devices.Composite;
 /// on supply and load, input bias currents and a quiescent supply current rising with supply.
 /// </summary>
 /// <remarks>
-/// Two families by <c>variant</c>; every value can be overridden. Defaults are common practice for the part class
+/// Two families by <c>variant</c> (bipolar by default), input currents from the typical or the maximum column by
+/// <c>inputCurrents</c>; every value can be overridden. Defaults are common practice for the part class
 /// (typical bands of the bipolar and CMOS families), some from memory: see each parameter's description.
 /// </remarks>
 public static class Timer555
 {
-    private static readonly ParameterSpec s_variant = ParameterSpec.Word("variant", "Part family: sets the defaults below", "cmos", "bipolar") with { DefaultText = "cmos" };
-    private static readonly ParameterSpec s_thresholdCurrent = Current("thresholdCurrent", "Current into the threshold pin (bipolar 30 nA, CMOS 10 pA; common practice)");
-    private static readonly ParameterSpec s_triggerCurrent = Current("triggerCurrent", "Current out of the trigger pin (bipolar 0.5 µA, CMOS 10 pA; common practice)");
-    private static readonly ParameterSpec s_resetCurrent = Current("resetCurrent", "Current out of the reset pin (bipolar 0.1 mA, CMOS 10 pA; from memory)");
+    // Bipolar by default: the family most builds use (common practice).
+    private static readonly ParameterSpec s_variant = ParameterSpec.Word("variant", "Part family: sets the defaults below (bipolar: the family most builds use)", "bipolar", "cmos") with { DefaultText = "bipolar" };
+    private static readonly ParameterSpec s_inputCurrents = ParameterSpec.Word("inputCurrents",
+        "Which data-sheet column the threshold, trigger and reset currents take: typical, or maximum for a worst-case check", "typical", "maximum") with { DefaultText = "typical" };
+    private static readonly ParameterSpec s_thresholdCurrent = Current("thresholdCurrent", "Current into the threshold pin (bipolar 0.1 µA typical, 0.25 µA maximum; CMOS 10 pA typical, 100 pA maximum; from memory)");
+    private static readonly ParameterSpec s_triggerCurrent = Current("triggerCurrent", "Current out of the trigger pin (bipolar 0.5 µA typical, 0.9 µA maximum; CMOS 10 pA typical, 100 pA maximum; from memory)");
+    private static readonly ParameterSpec s_resetCurrent = Current("resetCurrent", "Current out of the reset pin while it is held low (bipolar 0.1 mA typical, 0.4 mA maximum; CMOS 10 pA typical, 100 pA maximum; from memory)");
     private static readonly ParameterSpec s_resetThreshold = ParameterSpec.Number("resetThreshold", "V", "Reset pin threshold above gnd (0.7 V both families; from memory)") with { Min = 0, Max = 20 };
     private static readonly ParameterSpec s_dischargeResistance = ParameterSpec.Number("dischargeResistance", "Ω", "Discharge switch on-resistance (bipolar 10 Ω, CMOS 15 Ω; from memory)") with { Min = 1e-3, Max = 1e6 };
     private static readonly ParameterSpec s_dischargeOffResistance = ParameterSpec.Number("dischargeOffResistance", "Ω", "Discharge switch off-resistance, i.e. leakage (bipolar 500 MΩ ≈ 20 nA at 10 V, CMOS 10 GΩ; common practice)") with { Min = 1e3, Max = 1e18 };
@@ -45,10 +49,18 @@ public static class Timer555
         double DischargeResistance, double DischargeOffResistance, double SupplyCurrent, double DividerResistance,
         double OutputDropHigh, double OutputDropLow, double OutputResistanceHigh, double OutputResistanceLow);
 
-    // Common practice for the part class (input currents, discharge leakage, supply current, output drop);
-    // divider legs, reset values, discharge and output resistances from memory.
-    private static readonly Family s_bipolar = new(30e-9, 0.5e-6, 0.1e-3, 0.7, 10.0, 500e6, 8e-3, 5e3, 1.4, 0.05, 3.0, 10.0);
+    // Common practice for the part class (discharge leakage, supply current, output drop); input currents (typical and
+    // maximum columns), divider legs, reset values, discharge and output resistances from memory.
+    private static readonly Family s_bipolar = new(0.1e-6, 0.5e-6, 0.1e-3, 0.7, 10.0, 500e6, 8e-3, 5e3, 1.4, 0.05, 3.0, 10.0);
+    private static readonly Family s_bipolarMaximum = s_bipolar with { ThresholdCurrent = 0.25e-6, TriggerCurrent = 0.9e-6, ResetCurrent = 0.4e-3 };
     private static readonly Family s_cmos = new(10e-12, 10e-12, 10e-12, 0.7, 15.0, 10e9, 0.2e-3, 100e3, 0.0, 0.0, 150.0, 20.0);
+    private static readonly Family s_cmosMaximum = s_cmos with { ThresholdCurrent = 100e-12, TriggerCurrent = 100e-12, ResetCurrent = 100e-12 };
+
+    private static Family FamilyOf(PartParameters p)
+    {
+        bool maximum = p.TextOrDefault(s_inputCurrents) == "maximum";
+        return p.TextOrDefault(s_variant) == "cmos" ? (maximum ? s_cmosMaximum : s_cmos) : (maximum ? s_bipolarMaximum : s_bipolar);
+    }
 
     public static PartKind Kind { get; } = new()
     {
@@ -58,7 +70,7 @@ public static class Timer555
         OptionalPins = ["control"],
         Parameters =
         [
-            s_variant, s_thresholdCurrent, s_triggerCurrent, s_resetCurrent, s_resetThreshold, s_dischargeResistance,
+            s_variant, s_inputCurrents, s_thresholdCurrent, s_triggerCurrent, s_resetCurrent, s_resetThreshold, s_dischargeResistance,
             s_dischargeOffResistance, s_supplyCurrent, s_supplyNominal, s_dividerResistance, s_outputDropHigh, s_outputDropLow,
             s_outputResistanceHigh, s_outputResistanceLow, s_thresholdOffset, s_triggerOffset, s_hysteresis, s_transition,
             s_offsetTolerance, s_inputCurrentTolerance,
@@ -72,7 +84,7 @@ public static class Timer555
     public static double EffectiveNumber(PartDefinition part, string name)
     {
         if (part.Parameters.OptionalNumber(name) is double given) return given;
-        Family f = part.Parameters.TextOrDefault(s_variant) == "bipolar" ? s_bipolar : s_cmos;
+        Family f = FamilyOf(part.Parameters);
         return name switch
         {
             "thresholdCurrent" => f.ThresholdCurrent,
@@ -99,7 +111,7 @@ public static class Timer555
     public static IEnumerable<Device> Expand(PartDefinition part)
     {
         PartParameters p = part.Parameters;
-        Family family = p.TextOrDefault(s_variant) == "bipolar" ? s_bipolar : s_cmos;
+        Family family = FamilyOf(p);
         string id = part.Id;
         string Internal(string local) => id + "." + local;
 

@@ -42,6 +42,10 @@ public sealed class LightInput
 
     public string ChannelName { get; }
 
+    /// <summary>True when the part has its own constant or piecewise-linear lux: a run without a light signal then
+    /// uses that, not the run's constant lux.</summary>
+    public bool HasOwnLight => _constant is not null || _times.Length > 0;
+
     public double Gain { get; }
 
     /// <summary>Resolve the channel index. A run with a light signal that lacks the channel is refused, for every sensor

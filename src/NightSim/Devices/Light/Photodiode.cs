@@ -13,7 +13,7 @@ namespace NightSim.Devices.Light;
 /// memory, times 7.5 mm², with 100 lx of daylight ≈ 1 W/m²) and 2 nA dark current (from memory); 50 pF junction
 /// capacitance from memory.
 /// </remarks>
-public sealed class Photodiode : Device
+public sealed class Photodiode : Device, ILightSensor
 {
     private static readonly ParameterSpec s_responsivity = ParameterSpec.Number("responsivity", "A/lx", "Photocurrent per lux") with { Default = 0.04e-6, Min = 0, Max = 1e-3 };
     private static readonly ParameterSpec s_darkCurrent = ParameterSpec.Number("darkCurrent", "A", "Dark (reverse) current") with { Default = 2e-9, Min = 0, Max = 1e-3 };
@@ -41,6 +41,12 @@ public sealed class Photodiode : Device
 
     private readonly double _responsivity, _darkCurrent, _capacitance, _is, _n;
     private readonly LightInput _light;
+
+    /// <inheritdoc />
+    public LightInput Light => _light;
+
+    /// <inheritdoc />
+    public double FallTimeConstant(double lux) => 0.0;
     private int _anode, _cathode;
     private PairSlots _slots;
 

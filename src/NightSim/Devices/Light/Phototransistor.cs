@@ -12,7 +12,7 @@ namespace NightSim.Devices.Light;
 /// Defaults give k = β·base responsivity = 0.5 µA/lx and 10 nA dark current, an eye-corrected NPN part class
 /// (from memory); V_knee 0.1 V from memory; 10 pF collector-emitter capacitance from memory.
 /// </remarks>
-public sealed class Phototransistor : Device
+public sealed class Phototransistor : Device, ILightSensor
 {
     private static readonly ParameterSpec s_baseResponsivity = ParameterSpec.Number("baseResponsivity", "A/lx", "Base photocurrent per lux") with { Default = 1e-9, Min = 0, Max = 1e-3 };
     private static readonly ParameterSpec s_currentGain = ParameterSpec.Number("currentGain", "", "Current gain β from base photocurrent to collector") with { Default = 500.0, Min = 1, Max = 1e5 };
@@ -38,6 +38,12 @@ public sealed class Phototransistor : Device
 
     private readonly double _baseResponsivity, _beta, _darkCurrent, _knee, _capacitance;
     private readonly LightInput _light;
+
+    /// <inheritdoc />
+    public LightInput Light => _light;
+
+    /// <inheritdoc />
+    public double FallTimeConstant(double lux) => 0.0;
     private int _c, _e;
     private PairSlots _slots;
 

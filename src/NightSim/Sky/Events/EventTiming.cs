@@ -26,6 +26,12 @@ public sealed record EventTiming(IReadOnlyList<TimeSpan>? Times, double PerHour,
         if (hasTimes)
         {
             var times = ctx.ClockList(obj, path, "times");
+            if (times is not null && times.Count > InputLimits.MaxEventsPerNight)
+            {
+                ctx.Error($"{path}.times", $"{times.Count} times are more than the limit of {InputLimits.MaxEventsPerNight} events per night",
+                    "use \"perHour\" for many events, or fewer times");
+                return null;
+            }
             return times is null ? null : new EventTiming(times, 0, TimeSpan.Zero, TimeSpan.Zero);
         }
         double? rate = ctx.Number(obj, path, "perHour", null, required: true, min: 0);
@@ -35,6 +41,14 @@ public sealed record EventTiming(IReadOnlyList<TimeSpan>? Times, double PerHour,
         if (NightOrder(to.Value) <= NightOrder(from.Value))
         {
             ctx.Error($"{path}.to", "\"to\" must come after \"from\" within the night (noon to noon)", "e.g. from \"18:00\" to \"06:00\"");
+            return null;
+        }
+        double hours = (NightOrder(to.Value) - NightOrder(from.Value)).TotalHours;
+        if (rate.Value * hours > InputLimits.MaxEventsPerNight)
+        {
+            ctx.Error($"{path}.perHour", string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"{rate.Value:G4} per hour for {hours:0.##} h would be more than the limit of {InputLimits.MaxEventsPerNight} events per night"),
+                "give a realistic rate, e.g. \"perHour\": 3");
             return null;
         }
         return new EventTiming(null, rate.Value, from.Value, to.Value);

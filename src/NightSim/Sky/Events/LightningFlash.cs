@@ -117,9 +117,17 @@ public sealed class LightningDefinition : IEventDefinition
             if (!ctx.ExpectObject(s, sp)) { ok = false; continue; }
             ctx.CheckProperties(s, sp, "from", "minutes", "flashesPerMinute");
             TimeSpan? from = ctx.Clock(s, sp, "from", required: true);
-            double? minutes = ctx.Number(s, sp, "minutes", null, required: true, min: 0, minExclusive: true);
+            double? minutes = ctx.Number(s, sp, "minutes", null, required: true, min: ScenarioLoader.MinEventMinutes, max: 24 * 60);
             double? rate = ctx.Number(s, sp, "flashesPerMinute", null, required: true, min: 0);
             if (from is null || minutes is null || rate is null) { ok = false; continue; }
+            if (rate.Value * minutes.Value > InputLimits.MaxEventsPerNight)
+            {
+                ctx.Error($"{sp}.flashesPerMinute", string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                    $"{rate.Value:G4} flashes a minute for {minutes.Value:G4} minutes would be more than the limit of {InputLimits.MaxEventsPerNight} events per night"),
+                    "a heavy storm has a few flashes a minute, e.g. \"flashesPerMinute\": 2");
+                ok = false;
+                continue;
+            }
             storms.Add(new LightningStorm(from.Value, minutes.Value, rate.Value));
         }
         if (!ok || peak is null) return null;
