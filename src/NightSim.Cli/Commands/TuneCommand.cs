@@ -180,7 +180,7 @@ internal static class TuneCommand
         {
             var pts = s.Candidates.Select(c => (c.Values[0].Value, (double?)(c.PredictedMargin * 100), c.PredictedMargin >= 0)).ToList();
             figures.Add(StudyCommon.Plot(StudyPlots.Line($"Predicted least margin against {a.Key}",
-                "closed forms at every corner; crosses: predicted to miss a target", $"{a.Key} ({a.Unit})", a.LogScale, "least margin (% of the target)", pts, [("target met above 0", 0)]),
+                "closed forms at every corner; crosses: predicted to miss a target", a.Key, a.Unit, a.LogScale, "least margin (% of the target)", pts, [("target met above 0", 0)]),
                 dir, "tune-predicted", $"Closed-form least margin of every value of {a.Key}", written, ref warning));
         }
         else if (s.Method == TuneMethod.ClosedForms && s.Axes.Count == 2)
@@ -189,7 +189,7 @@ internal static class TuneCommand
             var byCell = s.Candidates.ToDictionary(c => (Array.IndexOf([.. a.Values], c.Values[0].Value), Array.IndexOf([.. b.Values], c.Values[1].Value)));
             figures.Add(StudyCommon.Plot(StudyPlots.HeatMap($"Predicted least margin over {a.Key} × {b.Key}",
                 "closed forms at every corner; green: predicted to meet every target; cells: predicted / simulated margin",
-                $"{a.Key} ({a.Unit})", a.Values, $"{b.Key} ({b.Unit})", b.Values,
+                a.Key, a.Unit, a.Values, b.Key, b.Unit, b.Values,
                 (i, j) => byCell.TryGetValue((i, j), out TuneCandidate? c)
                     ? (c.PredictedMargin >= 0, TuneReport.Percent(c.PredictedMargin ?? double.NaN) + (simulated.TryGetValue(c.Index, out TuneResult? r) ? "\nsim " + TuneReport.Percent(r.WorstMargin) : ""))
                     : (false, "")),
@@ -199,7 +199,7 @@ internal static class TuneCommand
         {
             var pts = report.Results.OrderBy(r => r.Values[0].Value).Select(r => (r.Values[0].Value, double.IsFinite(r.WorstMargin) ? r.WorstMargin * 100 : (double?)null, r.Pass)).ToList();
             figures.Add(StudyCommon.Plot(StudyPlots.Line($"Simulated least margin of the confirmed combinations",
-                $"every night and corner; {(report.Met ? "best: " + report.Values(report.Best!.Values) : "none meets every target")}", $"{a.Key} ({a.Unit})", a.LogScale,
+                $"every night and corner; {(report.Met ? "best: " + report.Values(report.Best!.Values) : "none meets every target")}", a.Key, a.Unit, a.LogScale,
                 "least margin (% of the target)", pts, [("target met above 0", 0)]),
                 dir, "tune-simulated", "Simulated least margin of each confirmed combination (the other varied values are in the table)", written, ref warning));
         }
