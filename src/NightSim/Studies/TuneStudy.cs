@@ -51,7 +51,7 @@ public sealed class TuneStudy
         if (GridSize > MaxGrid) throw new ArgumentException($"--vary: {GridSize} combinations is too many; narrow the ranges below {MaxGrid}");
         Quantities = TunePhysics.Quantities(Targets, request.Netlist, Scenario);
         Corners = corners ? TuneCorners.For(request.Netlist, Scenario, Quantities) : [TuneCorner.Nominal];
-        Unnarrowed = axes.Where(a => !Moves(a)).Select(a => a.Key).ToList();
+        Unnarrowed = axes.Where(a => a.Values.Count > 1 && !Moves(a)).Select(a => a.Key).ToList();
         Method = Quantities.Count > 0 && Unnarrowed.Count == 0 ? TuneMethod.ClosedForms : TuneMethod.FullGrid;
         Candidates = Enumerable.Range(0, (int)GridSize).Select(Predict).ToList();
         Confirmed = Choose();
