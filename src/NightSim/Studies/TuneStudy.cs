@@ -247,8 +247,7 @@ public sealed class TuneStudy
                 }
                 else if (there > here + 1e-6)
                 {
-                    advice.Add(string.Create(CultureInfo.InvariantCulture,
-                        $"widen the range of {a.Key} {(up ? "upward" : "downward")}: at {EngineeringValue.Format(next, a.Unit, 3)} the closed forms predict a margin of {there * 100:0.#} % (here {here * 100:0.#} %)."));
+                    advice.Add($"widen the range of {a.Key} {(up ? "upward" : "downward")}: at {EngineeringValue.Format(next, a.Unit, 3)} the closed forms predict a margin of {TuneReport.Percent(there)} (here {TuneReport.Percent(here)}).");
                 }
             }
         }
