@@ -22,6 +22,7 @@ internal static class Program
         root.Subcommands.Add(YearCommand.Create());
         root.Subcommands.Add(TuneCommand.Create());
         root.Subcommands.Add(MergeCommand.Create());
+        root.Subcommands.Add(BenchCommand.Create());
 
         return root;
     }

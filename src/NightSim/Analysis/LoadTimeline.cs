@@ -143,10 +143,22 @@ public static class LoadTimeline
             switch (e.Kind)
             {
                 case DeviceEventKind.ThresholdReached: return ("timer ran out", true);
-                case DeviceEventKind.TriggerReleased: return ($"timer {timer}'s trigger input was released", false);
+                case DeviceEventKind.TriggerReleased: return ($"timer {timer}'s trigger input was released{By(facts, e.Time)}", false);
                 case DeviceEventKind.ResetHeld: return ($"timer {timer} was reset", false);
             }
         }
         return ($"timer {timer}'s output went low", false);
+    }
+
+    /// <summary>" by &lt;light event&gt; at &lt;clock&gt;" when a scenario light event was lighting the sensor when the
+    /// trigger was released (a headlight pass that brightened a trigger held low), else "".</summary>
+    private static string By(RunFacts facts, double t)
+    {
+        foreach (EventFact e in facts.Events)
+        {
+            if (e.Cause != LoadCause.Noise && t >= e.Start - 1e-6 && t <= e.End + 1.0)
+                return $" by {e.Description} at {Wording.Clock(facts.Clock(e.Start))}";
+        }
+        return "";
     }
 }

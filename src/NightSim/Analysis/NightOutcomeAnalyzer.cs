@@ -61,11 +61,13 @@ public sealed class NightOutcomeAnalyzer : IResultAnalyzer
             {
                 return new Finding(Severity.Warning, "never-dark-enough",
                     $"{n.Date:yyyy-MM-dd}: the light at {sensor} never fell below {darkest:0.##} lx (darkest at {Wording.Clock(facts.Clock(at))}) against the circuit's switching level of {level:0.##} lx, so the lamp stayed off all night.",
-                    $"Nothing failed: the night here is never darker than {level:0.##} lx. If the lamp should come on such nights, raise the switching level above {darkest:0.##} lx (the sensor divider's trimmer) or shade the sensor.",
+                    $"Nothing failed: the night here is never darker than {darkest:0.##} lx. If the lamp should come on such nights, raise the switching level above {darkest:0.##} lx (the sensor divider's trimmer) or shade the sensor.",
                     facts.Clock(at), facts.Sensor?.PartId);
             }
         }
-        bool triggered = facts.DeviceEvents.Any(e => e.Kind == DeviceEventKind.TriggerFired && e.Time >= from && e.Time < to);
+        // The trigger pin starts below its level while its network charges at power-up: that firing is not the night's.
+        double since = Math.Max(from, facts.PowerUpWindow);
+        bool triggered = facts.DeviceEvents.Any(e => e.Kind == DeviceEventKind.TriggerFired && e.Time >= since && e.Time < to);
         bool outputHigh = facts.DeviceEvents.Any(e => e.Kind == DeviceEventKind.TimerOutputHigh && e.Time >= from && e.Time < to);
         if (outputHigh && facts.Relays.Count > 0) return null; // the relay stage failed: StageAnalyzer says how
         string why = triggered

@@ -99,8 +99,8 @@ public sealed record TimerFacts(string PartId, double Resistance, double Capacit
 /// <param name="PartId">Relay part id.</param>
 /// <param name="PullIn">Pull-in coil voltage, V.</param>
 /// <param name="DropOut">Drop-out coil voltage, V.</param>
-/// <param name="CoilPeak">Highest coil voltage within [from, to] (run seconds), V, from the run's traces; NaN when
-/// not recorded.</param>
+/// <param name="CoilPeak">Highest coil voltage that counts against pull-in within [from, to] (run seconds), V: the
+/// peak coil current times the coil resistance; NaN when not recorded.</param>
 public sealed record RelayFacts(string PartId, double PullIn, double DropOut, Func<double, double, double> CoilPeak);
 
 /// <summary>The light sensor and its switching level.</summary>

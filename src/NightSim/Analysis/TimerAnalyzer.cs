@@ -48,8 +48,10 @@ public sealed class TimerAnalyzer : IResultAnalyzer
             {
                 double expected = facts.Timers[0].ClosedFormWidth, actual = iv.End.Value - iv.Start;
                 double dev = (actual - expected) / expected;
-                yield return new Finding(Math.Abs(dev) > 0.1 ? Severity.Warning : Severity.Info, "on-time",
-                    $"On for {Wording.Duration(actual)} from {Wording.Clock(facts.Clock(iv.Start))} ({iv.EndedBy}); the timer's closed form with leakage gives {Wording.Duration(expected)} ({dev * 100:+0.0;-0.0} %).",
+                // Only an on-period the timer ended says something about the timer; one ended by its trigger, its reset or
+                // the supply is named by the finding for that stage.
+                yield return new Finding(iv.EndedByTimer && Math.Abs(dev) > 0.1 ? Severity.Warning : Severity.Info, "on-time",
+                    $"On for {Wording.Duration(actual)} from {Wording.Clock(facts.Clock(iv.Start))} ({iv.EndedBy}); the timer's closed form with leakage gives {Wording.Duration(expected)} ({dev * 100:+0.0;-0.0;0.0} %).",
                     null, facts.Clock(iv.Start));
             }
         }

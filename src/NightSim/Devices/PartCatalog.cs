@@ -27,6 +27,7 @@ public static class PartCatalog
         Light.Photoresistor.Kind,
         Light.Photodiode.Kind,
         Light.Phototransistor.Kind,
+        Light.LightCurrentSensor.Kind,
     ];
 
     private static readonly Dictionary<string, PartKind> s_byName = s_kinds.ToDictionary(k => k.Name, StringComparer.Ordinal);

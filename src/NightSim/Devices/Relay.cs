@@ -111,9 +111,12 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         _contactA = new int[_contacts.Length];
         _contactB = new int[_contacts.Length];
         _contactSlots = new PairSlots[_contacts.Length];
-        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullIn, settings.DropOut, settings.CoilResistance);
+        Role = new Roles.RelayCoilRole(partId, coilA, coilB, settings.PullIn, settings.DropOut, settings.CoilResistance, CoilCurrentLabel(name));
         PowerUp();
     }
+
+    /// <summary>Label of the coil-current unknown of a relay device named <paramref name="name"/>.</summary>
+    public static string CoilCurrentLabel(string name) => name + ".i";
 
     private static List<string> BuildNodes(string a, string b, IReadOnlyList<RelayContact> contacts)
     {
@@ -197,7 +200,7 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
 
     public override void Setup(SetupContext setup)
     {
-        _coil = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), Name + ".i");
+        _coil = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), CoilCurrentLabel(Name));
         _sBrBr = setup.Slot(_coil.K, _coil.K);
         for (int k = 0; k < _contacts.Length; k++)
         {

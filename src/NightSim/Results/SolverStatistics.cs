@@ -40,6 +40,19 @@ public sealed class SolverStatistics
     /// <summary>Processor time spent in the run, seconds.</summary>
     public double CpuSeconds { get; internal set; }
 
+    /// <summary>Bytes allocated on the solver's thread from accepted step <see cref="SteadyFromStep"/> to the end of the
+    /// run (the step loop, the accepted-point callback and event firing; not setup or result building).</summary>
+    public long SteadyAllocatedBytes { get; internal set; }
+
+    /// <summary>Accepted steps over which <see cref="SteadyAllocatedBytes"/> was counted.</summary>
+    public long SteadySteps { get; internal set; }
+
+    /// <summary>Accepted step from which allocation is counted (buffers sized on first use are in place by then).</summary>
+    public const long SteadyFromStep = 200;
+
+    /// <summary>Allocated bytes per accepted step after <see cref="SteadyFromStep"/>; 0 when the run was shorter.</summary>
+    public double AllocatedBytesPerStep => SteadySteps > 0 ? SteadyAllocatedBytes / (double)SteadySteps : 0.0;
+
     internal void NoteStep(double h)
     {
         AcceptedSteps++;

@@ -35,4 +35,7 @@ public sealed class CoupledLightSignal : ILightSignal
     }
 
     public double NextBreakpoint(double time) => _inner.NextBreakpoint(time);
+
+    /// <summary>The lamp's own light changes only at events; the smooth part is the scenario's.</summary>
+    public double StepLimit(double time, double change) => _inner.StepLimit(time, change);
 }

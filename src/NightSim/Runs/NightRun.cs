@@ -1,5 +1,6 @@
 using NightSim.Analysis;
 using NightSim.Devices;
+using NightSim.Devices.Roles;
 using NightSim.Netlist;
 using NightSim.Reporting;
 using NightSim.Results;
@@ -46,7 +47,9 @@ public static class NightRun
         if (problems.Count > 0) throw new RunInputException(problems);
 
         Circuit circuit = Circuit.FromDevices(net.Name, devices, light);
-        TransientOptions options = request.Options with { RecordNodes = nodes, ConstantLux = request.ConstantLux };
+        // The nodes, plus each relay's coil current: the analysis compares the coil against its pull-in from it.
+        List<string> recorded = [.. nodes, .. devices.Select(d => d.Role).OfType<RelayCoilRole>().Select(r => r.CoilCurrent)];
+        TransientOptions options = request.Options with { RecordNodes = recorded, ConstantLux = request.ConstantLux };
         var solver = new TransientSolver(circuit, options, light);
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();

@@ -57,7 +57,7 @@ public static class RunFactsBuilder
             DeviceEvents = sim.Events,
             Timers = TimingNetwork.Extract(devices, node => TimingNetwork.FixedVoltage(devices, node) ?? MeasuredSupply(sim, node)),
             Relays = devices.Select(d => d.Role).OfType<RelayCoilRole>()
-                .Select(r => new RelayFacts(r.PartId, r.PullIn, r.DropOut, (from, to) => PeakDifference(sim, r.CoilA, r.CoilB, from, to))).ToList(),
+                .Select(r => new RelayFacts(r.PartId, r.PullIn, r.DropOut, (from, to) => PeakCoilVoltage(sim, r, from, to))).ToList(),
             Sensor = sensor is null ? null : new SensorFacts(sensor.PartId, profile is null ? null : SwitchingLevel.Find(request.Netlist, request.Options)),
             SkyLux = lux,
             SensorLux = lux,
@@ -94,20 +94,19 @@ public static class RunFactsBuilder
         return list;
     }
 
-    /// <summary>Highest V(a) − V(b) recorded within [from, to], V; NaN when a node is not recorded or nothing falls in
-    /// the window (ground reads 0 V).</summary>
-    public static double PeakDifference(SimulationResult sim, string a, string b, double from, double to)
+    /// <summary>Highest coil voltage that counts against pull-in within [from, to] (run seconds), V: the largest coil
+    /// current recorded in the window times the coil resistance (the armature follows the current, so the L/R rise
+    /// and a sagging drive are both in it; each trace bucket keeps its true minimum and maximum, so no peak is lost).
+    /// NaN when the coil current is not recorded or nothing falls in the window.</summary>
+    public static double PeakCoilVoltage(SimulationResult sim, RelayCoilRole coil, double from, double to)
     {
-        Trace? ta = Ground.Is(a) ? null : sim.Trace(a), tb = Ground.Is(b) ? null : sim.Trace(b);
-        if ((ta is null && !Ground.Is(a)) || (tb is null && !Ground.Is(b))) return double.NaN;
-        Trace reference = ta ?? tb!;
+        if (sim.Trace(coil.CoilCurrent) is not Trace current) return double.NaN;
         double peak = double.NaN;
-        int count = Math.Min(ta?.Values.Count ?? int.MaxValue, tb?.Values.Count ?? int.MaxValue);
-        for (int i = 0; i < count; i++)
+        for (int i = 0; i < current.Times.Count; i++)
         {
-            double t = reference.Times[i];
+            double t = current.Times[i];
             if (t < from || t > to) continue;
-            double v = (ta?.Values[i] ?? 0.0) - (tb?.Values[i] ?? 0.0);
+            double v = Math.Abs(current.Values[i]) * coil.CoilResistance;
             if (double.IsNaN(peak) || v > peak) peak = v;
         }
         return peak;

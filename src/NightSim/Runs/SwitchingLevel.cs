@@ -7,8 +7,8 @@ using NightSim.Transient;
 namespace NightSim.Runs;
 
 /// <summary>
-/// The light at the sensor below which the circuit switches on, found from the circuit at rest: operating points at
-/// constant light, bisected in log lux. A trigger pin wired to the sensor stage switches when it falls below its
+/// The light at the sensor below which the circuit switches on, found from the circuit at rest: resting points
+/// (operating points with comparator, latch and relay states settled) at constant light, bisected in log lux. A trigger pin wired to the sensor stage switches when it falls below its
 /// level (a third of the supply); a trigger coupled through a capacitor sees the stage's output swing, which counts
 /// as switched once it has fallen past half way between its bright and dark levels.
 /// </summary>
@@ -25,25 +25,44 @@ public static class SwitchingLevel
             List<Device> probe = Create(net);
             if (probe.Select(d => d.Role).OfType<OneShotTimerRole>().FirstOrDefault() is not OneShotTimerRole timer) return null;
             if (!probe.Any(d => d.Role is LightSensorRole)) return null;
-            // A capacitor from the trigger pin to another node that is not ground: the trigger is coupled from there.
-            string? drive = null;
-            foreach (Device d in probe)
+            double[]? Solve(double lux, out Circuit c)
             {
-                if (d is not Capacitor || d.Nodes.Count != 2 || !d.Nodes.Contains(timer.Trigger)) continue;
-                string other = d.Nodes[0] == timer.Trigger ? d.Nodes[1] : d.Nodes[0];
-                if (!Ground.Is(other) && other != timer.Supply) drive = other;
+                c = Circuit.FromDevices(net.Name, Create(net));
+                return TransientSolver.TrySolveRestingPoint(c, options with { ConstantLux = lux }, out double[]? x) ? x : null;
             }
-            string node = drive ?? timer.Trigger;
-            double? Level(double lux)
+            // Levels at rest as fractions of the timer's supply, dark and bright.
+            if (Solve(Darkest, out Circuit circuit) is not double[] xDark || Solve(Brightest, out _) is not double[] xBright) return null;
+            int supply = circuit.IndexOf(timer.Supply);
+            double Fraction(double[] x, string n) => circuit.IndexOf(n) is int m and >= 0 ? x[m] / (supply >= 0 ? Math.Max(x[supply], 1e-9) : 1.0) : 0.0;
+
+            // Wired straight to the sensor stage, the trigger pin itself crosses its level. Otherwise the trigger is
+            // coupled through a capacitor: its driving side is the capacitor terminal that falls with darkness while
+            // the other terminal stays put (held by the trigger's pull-up), and counts as switched once it has fallen
+            // past half way between its bright and dark levels.
+            string node = timer.Trigger;
+            double limit = timer.TriggerFraction;
+            if (!(Fraction(xDark, node) < limit && Fraction(xBright, node) > limit))
             {
-                Circuit c = Circuit.FromDevices(net.Name, Create(net));
-                if (!TransientSolver.TrySolveOperatingPoint(c, options with { ConstantLux = lux }, out double[]? x) || x is null) return null;
-                int i = c.IndexOf(node), s = c.IndexOf(timer.Supply);
-                return i < 0 ? null : x[i] / (s >= 0 ? Math.Max(x[s], 1e-9) : 1.0);
+                string? drive = null;
+                double best = 0.2;
+                foreach (Device d in probe)
+                {
+                    if (d is not Capacitor || d.Nodes.Count != 2) continue;
+                    foreach ((string a, string b) in (ReadOnlySpan<(string, string)>)[(d.Nodes[0], d.Nodes[1]), (d.Nodes[1], d.Nodes[0])])
+                    {
+                        if (Ground.Is(a) || Ground.Is(b) || a == timer.Supply || b == timer.Supply) continue;
+                        double fall = Fraction(xBright, a) - Fraction(xDark, a);
+                        double still = Math.Abs(Fraction(xBright, b) - Fraction(xDark, b));
+                        if (fall > best && still < 0.1) (drive, best) = (a, fall);
+                    }
+                }
+                if (drive is null) return null;
+                node = drive;
+                limit = 0.5 * (Fraction(xDark, drive) + Fraction(xBright, drive));
             }
-            if (Level(Darkest) is not double dark || Level(Brightest) is not double bright) return null;
-            double limit = drive is null ? timer.TriggerFraction : 0.5 * (dark + bright);
-            if (!(dark < limit && bright > limit)) return null;
+            double? Level(double lux) => Solve(lux, out Circuit c) is double[] x && c.IndexOf(node) >= 0
+                ? x[c.IndexOf(node)] / (c.IndexOf(timer.Supply) is int j and >= 0 ? Math.Max(x[j], 1e-9) : 1.0)
+                : null;
             double lo = Math.Log(Darkest), hi = Math.Log(Brightest);
             for (int k = 0; k < 30 && hi - lo > 1e-3; k++)
             {

@@ -16,4 +16,9 @@ public interface ILightSignal
     /// <summary>The first known edge (event start, peak or end, recorded-log sample, steady light on/off) strictly
     /// after <paramref name="time"/>, in seconds; +∞ if none. Allocation-free.</summary>
     double NextBreakpoint(double time);
+
+    /// <summary>The longest step from <paramref name="time"/> over which the light on every channel changes by no more
+    /// than the factor e^<paramref name="change"/> (|Δ ln lux| ≤ change) through its smooth part (the sky), seconds;
+    /// +∞ when the signal does not know (edges are reported by <see cref="NextBreakpoint"/>). Allocation-free.</summary>
+    double StepLimit(double time, double change) => double.PositiveInfinity;
 }

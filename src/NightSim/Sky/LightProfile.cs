@@ -34,6 +34,9 @@ public sealed class LightProfile : ILightSignal
     private readonly bool _logReplace;
     private readonly bool _logAtSensor;
     private readonly double[] _breakpoints;
+    /// <summary>Per channel: running total of |Δ ln lux| of the sky part (Sun, Moon, night floor, light floor) over the
+    /// sun grid, from run time 0; the light-aware step limit reads it.</summary>
+    private readonly double[][] _skyVariation;
 
     private LightProfile(LightScenario scenario)
     {
@@ -76,6 +79,34 @@ public sealed class LightProfile : ILightSignal
         _floorLux = w.FloorLux;
         _channelNames = [.. scenario.Channels.Select(c => c.Name)];
         _exposure = [.. scenario.Channels.Select(c => c.Exposure)];
+        _skyVariation = new double[_exposure.Length][];
+        for (int c = 0; c < _exposure.Length; c++)
+        {
+            var v = new double[n + 1];
+            double previous = Math.Log(Math.Max(GridSkyLux(0) * _exposure[c] + _floorLux, 1e-9));
+            for (int i = 1; i <= n; i++)
+            {
+                double current = Math.Log(Math.Max(GridSkyLux(i) * _exposure[c] + _floorLux, 1e-9));
+                double increment = Math.Abs(current - previous);
+                if (_exactInterval[i - 1])
+                {
+                    // The joining band is curved within the interval: sum the change over sub-samples of the exact
+                    // curve and count it half again, so that a step inside the band keeps to the bound.
+                    const int parts = 16;
+                    double sum = 0.0, last = previous;
+                    for (int k = 1; k <= parts; k++)
+                    {
+                        double here = Math.Log(Math.Max(SkyLuxBetween(i - 1, (double)k / parts) * _exposure[c] + _floorLux, 1e-9));
+                        sum += Math.Abs(here - last);
+                        last = here;
+                    }
+                    increment = 1.5 * Math.Max(sum, increment);
+                }
+                v[i] = v[i - 1] + increment;
+                previous = current;
+            }
+            _skyVariation[c] = v;
+        }
 
         // Draw every random event now: one stream per definition, named kind#ordinal.
         var sink = new EventSink();
@@ -131,6 +162,52 @@ public sealed class LightProfile : ILightSignal
         ScheduledEvents = [.. scheduled.OrderBy(s => s.StartSeconds).ThenBy(s => s.Kind, StringComparer.Ordinal)];
 
         SolarEvents = [.. Enumerable.Range(0, scenario.Nights).Select(k => Twilight.ForNight(site, scenario.Start.AddDays(k)))];
+    }
+
+    private double GridSkyLux(int i) => Math.Exp(_logSunLux[i]) + (_moonLux?[i] ?? 0.0) + _nightLux;
+
+    /// <summary>Open-sky lux (no clouds) a fraction <paramref name="f"/> into grid interval <paramref name="i"/>, with the
+    /// Sun term from the exact model.</summary>
+    private double SkyLuxBetween(int i, double f)
+    {
+        double sun = IlluminanceModel.SunLux(_elevation[i] + f * (_elevation[i + 1] - _elevation[i]), _skyFactor);
+        double moon = _moonLux is null ? 0.0 : _moonLux[i] + f * (_moonLux[i + 1] - _moonLux[i]);
+        return sun + moon + _nightLux;
+    }
+
+    /// <inheritdoc />
+    /// <remarks>From the running total of |Δ ln lux| of the sky on the sun grid (linear within a grid interval): the step
+    /// ends where that total has grown by <paramref name="change"/> on the channel that changes fastest. Event edges,
+    /// and log samples are breakpoints and are landed on separately; the band joining the day and twilight branches is
+    /// counted from sub-samples of the exact curve.</remarks>
+    public double StepLimit(double time, double change)
+    {
+        if (!(time >= 0) || time >= Duration) return double.PositiveInfinity;
+        double limit = double.PositiveInfinity;
+        foreach (double[] v in _skyVariation)
+        {
+            double target = Variation(v, time) + change;
+            if (target >= v[^1]) continue;
+            // First grid point at or beyond the target, then linear within the interval before it.
+            int lo = 0, hi = v.Length - 1;
+            while (lo < hi)
+            {
+                int mid = (lo + hi) >>> 1;
+                if (v[mid] < target) lo = mid + 1; else hi = mid;
+            }
+            int k = Math.Max(lo, 1);
+            double span = v[k] - v[k - 1];
+            double at = (k - 1 + (span > 0 ? (target - v[k - 1]) / span : 1.0)) * _gridStep;
+            limit = Math.Min(limit, Math.Max(at - time, 0.0));
+        }
+        return limit;
+    }
+
+    private double Variation(double[] v, double time)
+    {
+        double x = time / _gridStep;
+        int i = Math.Min((int)x, v.Length - 2);
+        return v[i] + (x - i) * (v[i + 1] - v[i]);
     }
 
     /// <summary>Builds the profile (all random draws happen here).</summary>

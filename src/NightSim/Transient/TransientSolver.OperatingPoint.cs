@@ -20,6 +20,46 @@ public sealed partial class TransientSolver
         return ok;
     }
 
+    /// <summary>
+    /// The circuit at rest with its discrete states settled: an operating point, then every event function that says
+    /// its device's state disagrees with that point (a positive value: a comparator decided the other way, a relay
+    /// coil above pull-in) fires, time moves on far enough for output ramps and delays to finish, and the operating
+    /// point is solved again, until no state changes (at most <see cref="TransientOptions.MaxLogicPasses"/> passes).
+    /// A plain operating point keeps the power-up states, so a comparator between the sensor and the trigger would
+    /// never switch at rest.
+    /// </summary>
+    /// <returns>False when an operating point is not found or the states never settle.</returns>
+    public static bool TrySolveRestingPoint(Circuit circuit, TransientOptions? options, out double[]? solution)
+    {
+        const double Later = 1e3; // s between passes: longer than any output ramp or switching delay
+        solution = null;
+        var solver = new TransientSolver(circuit, (options ?? TransientOptions.Default) with { Start = StartMode.OperatingPoint });
+        foreach (Devices.Device d in solver._devices) d.PowerUp();
+        solver.SetTolerancesForDc();
+        double time = 0.0;
+        for (int pass = 0; pass <= solver._options.MaxLogicPasses; pass++)
+        {
+            solver._opTime = time;
+            if (!solver.SolveOperatingPoint()) return false;
+            Array.Fill(solver._gOld, 1.0); // an exact zero counts as agreeing
+            solver.EvaluateEvents(solver._x, time, solver._gNew, solver._gOld);
+            bool any = false;
+            for (int e = 0; e < solver._eventSource.Length; e++)
+            {
+                if (solver._gNew[e] <= 0.0) continue;
+                solver._eventSource[e].OnEvent(solver._eventIndex[e], solver._ctx, solver._eventLog);
+                any = true;
+            }
+            if (!any)
+            {
+                solution = [.. solver._x];
+                return true;
+            }
+            time += Later;
+        }
+        return false;
+    }
+
     private void SetTolerancesForDc()
     {
         for (int i = 0; i < _n; i++)
@@ -111,7 +151,7 @@ public sealed partial class TransientSolver
     {
         Array.Copy(guess, _ctx.X, _n);
         _ctx.InitJunctions = initJunctions;
-        bool ok = Newton(0.0, 0.0, zero);
+        bool ok = Newton(_opTime, 0.0, zero);
         _ctx.InitJunctions = false;
         if (ok) Array.Copy(_ctx.X, _x, _n);
         return ok;

@@ -88,10 +88,13 @@ public sealed partial class TransientSolver
     private bool _havePrev;     // x_{n-1} and q̇_{n-1} are valid (no jump since)
     private bool _needRestart;  // next step is a backward-Euler restart step
     private bool _rejectedLast;
+    private bool _ramping;      // steps since the last restart have all grown as fast as allowed: RestartGrowth applies
     private int _failuresHere;
     private double _opGmin;
+    private double _opTime; // time at which an operating point is solved (0 but for a resting point)
     private SimulationFailure? _failure;
     private long _cpuStart;
+    private long _steadyAllocStart;
     private bool _begun;
     private double _lastStepH; // h of the step just computed (trial)
     private bool _lastStepWasTrBdf2;
@@ -277,6 +280,7 @@ public sealed partial class TransientSolver
             // PlanStep: controller proposal, limits, breakpoint landing without sliver steps.
             double bp = NextBreakpoint(t);
             double h = Math.Min(_h, _maxStep);
+            if (_light is not null && _options.FixedStep is null) h = Math.Min(h, _light.StepLimit(t, _options.LightChange));
             if (_options.FixedStep is null) h = Math.Max(h, hMin);
             double dist = bp - t;
             bool landing = false;
@@ -291,6 +295,7 @@ public sealed partial class TransientSolver
             }
 
             bool restart = _needRestart;
+            long factorsBefore = _solver.Factorizations;
             bool ok = restart ? StepBackwardEuler(t, h, predict: false) : TakeStep(t, h);
             if (!ok)
             {
@@ -344,11 +349,14 @@ public sealed partial class TransientSolver
                 // At the smallest step the time resolution itself (a few ulp of t late in a long run) limits the
                 // accuracy: accept, and count it, rather than stop the run.
                 if (!(r <= 1.0)) _stats.ForcedSteps++;
-                hNext = ProposeStep(h, Math.Min(r, 1.0));
+                hNext = ProposeStep(h, Math.Min(r, 1.0), reusedLu: _solver.Factorizations == factorsBefore);
             }
             else if (restart)
             {
+                // The restart step only settles the algebraic unknowns; from the next (error-checked) step on, the ramp
+                // lets the error estimate choose how fast h grows back.
                 hNext = _options.FixedStep ?? Math.Max(h, _options.RestartStep);
+                _ramping = true;
             }
 
             // Events: locate the earliest sign change in (t, t + h], re-take the step up to it, fire.
@@ -421,16 +429,27 @@ public sealed partial class TransientSolver
         _stats.Factorizations = _solver.Factorizations;
         _stats.PivotAnalyses = _solver.Analyses;
         _stats.CpuSeconds = (Environment.CpuUsage.TotalTime.Ticks - _cpuStart) / (double)TimeSpan.TicksPerSecond;
+        if (_stats.AcceptedSteps > SolverStatistics.SteadyFromStep)
+        {
+            _stats.SteadyAllocatedBytes = GC.GetAllocatedBytesForCurrentThread() - _steadyAllocStart;
+            _stats.SteadySteps = _stats.AcceptedSteps - SolverStatistics.SteadyFromStep;
+        }
         return new SimulationResult(_recorder?.Build() ?? [], [.. _eventLog.Events], _stats,
             _failure?.Time ?? _time.Value, _light?.Origin, _failure);
     }
 
-    private double ProposeStep(double h, double r)
+    /// <param name="reusedLu">The step reused the previous factorisation (a linear circuit at constant h): keeping h
+    /// keeps that saving. Otherwise h follows the error estimate freely.</param>
+    private double ProposeStep(double h, double r, bool reusedLu)
     {
-        double fac = r > 0 ? 0.9 * Math.Pow(r / _options.ErrorTarget, -1.0 / 3.0) : _options.MaxGrowth;
+        // Right after a restart the error estimate alone limits growth (up to RestartGrowth per step) until the first
+        // step that it holds back; from then on the usual MaxGrowth applies.
+        double maxGrowth = _ramping && !_rejectedLast ? Math.Max(_options.RestartGrowth, _options.MaxGrowth) : _options.MaxGrowth;
+        double fac = r > 0 ? 0.9 * Math.Pow(r / _options.ErrorTarget, -1.0 / 3.0) : maxGrowth;
+        if (!(fac >= maxGrowth) || _rejectedLast) _ramping = false;
         double hNew;
-        if (fac >= 1.0 && fac <= 1.2) hNew = h; // hysteresis: keep h
-        else hNew = h * Math.Min(_options.MaxGrowth, Math.Max(0.2, fac));
+        if (fac >= 1.0 && (fac <= 1.2 && reusedLu || fac <= 1.02)) hNew = h; // hysteresis: keep h (and its LU)
+        else hNew = h * Math.Min(maxGrowth, Math.Max(0.2, fac));
         if (_rejectedLast) hNew = Math.Min(hNew, h);
         return hNew;
     }
@@ -451,6 +470,7 @@ public sealed partial class TransientSolver
         _hLast = h;
         if (double.IsNaN(landAt)) _time.Advance(h); else _time.Set(landAt);
         _stats.NoteStep(h);
+        if (_stats.AcceptedSteps == SolverStatistics.SteadyFromStep) _steadyAllocStart = GC.GetAllocatedBytesForCurrentThread();
         _rejectedLast = false;
         _failuresHere = 0;
 

@@ -57,12 +57,19 @@ public sealed class LongRunTests
             // The peak falls inside the 10 ns falling edge; the trace holds accepted points, so allow 5 mV (0.15 %).
             Assert.True(Math.Abs(maxFast - FastPeak()) <= 5e-3, $"hour {hour}: fast RC peak {maxFast} V, exact {FastPeak()} V");
         }
-        // Slow RC: 1 − e^(−t/τ) from power-up (the 1 ms supply ramp delays it by 0.5 ms; pulses add ≈ 1e-9 V each).
-        foreach (double t in new[] { 3600.0, 7200.0, 86400.0 })
+        // Slow RC: 1 − e^(−t/τ) from power-up (the 1 ms supply ramp delays it by 0.5 ms; pulses add ≈ 1e-9 V each),
+        // checked at every recorded point after the first minute (the trace is linear between accepted points, which
+        // may lie hours apart, so it is compared where the solver computed it).
+        int compared = 0;
+        for (int k = 0; k < slow.Times.Count; k++)
         {
+            double t = slow.Times[k];
+            if (t < 60) continue;
             double exact = 1 - Math.Exp(-(t - 0.5e-3) / 3600);
-            Assert.True(Math.Abs(slow.At(t) - exact) <= 1e-4, $"slow RC at {t} s: {slow.At(t)} V, exact {exact} V");
+            Assert.True(Math.Abs(slow.Values[k] - exact) <= 1e-4, $"slow RC at {t} s: {slow.Values[k]} V, exact {exact} V");
+            compared++;
         }
+        Assert.True(compared >= 24, $"{compared} points compared");
     }
 
     [Fact]
@@ -119,7 +126,7 @@ public sealed class LongRunTests
             new Diode("D1", "D1", "c", "vcc", junctionCapacitance: 2e-12),
             new Switch("S1", "S1", "c", "gnd", 0.1, 1e9, false),
         ]);
-        var solver = new TransientSolver(circuit, TransientOptions.Default);
+        var solver = new TransientSolver(circuit, TransientOptions.Default with { MaxStep = 60 });
         solver.Begin(1e9);
         for (int i = 0; i < 2000; i++) Assert.True(solver.Advance());
         // Measured over up to three windows of 1 000 steps: the runtime's tiered recompilation of a hot method can

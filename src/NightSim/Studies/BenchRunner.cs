@@ -1,0 +1,98 @@
+using System.Diagnostics;
+using NightSim.Analysis;
+using NightSim.Results;
+using NightSim.Runs;
+
+namespace NightSim.Studies;
+
+/// <summary>
+/// Runs the reference workloads in this process: each twice untimed (the runtime compiles the hot code), then timed
+/// repetitions; every figure reported is the median over the repetitions. The calibration kernel is timed the same way.
+/// The step counts of a deterministic run are the same in every repetition.
+/// </summary>
+public static class BenchRunner
+{
+    /// <summary>Runs the workloads found in <paramref name="demoDir"/>; <paramref name="progress"/> hears each name
+    /// before it runs.</summary>
+    /// <param name="only">Run only the workloads with these names (null: all).</param>
+    public static BenchReport Run(string demoDir, bool quick, Action<string>? progress = null, IReadOnlyCollection<string>? only = null)
+    {
+        int reps = quick ? 1 : 5;
+        int warmups = 2;
+
+        var kernel = new List<double>();
+        double sink = 0;
+        for (int i = 0; i < warmups + reps; i++)
+        {
+            long c0 = CpuTicks();
+            sink += CalibrationKernel.Run();
+            if (i >= warmups) kernel.Add(Seconds(CpuTicks() - c0));
+        }
+        double calibration = Median(kernel);
+        if (!double.IsFinite(sink)) throw new InvalidOperationException("calibration kernel diverged");
+
+        var measurements = new List<BenchMeasurement>();
+        foreach (BenchWorkload w in BenchWorkload.Reference(quick))
+        {
+            if (only is not null && only.Count > 0 && !only.Contains(w.Name)) continue;
+            progress?.Invoke(w.Name);
+            // The year is long enough to need no warm-up of its own: the shorter workloads before it have compiled the code.
+            int wu = w.Name.StartsWith("quiet-year", StringComparison.Ordinal) ? 0 : warmups;
+            int r = w.Name.StartsWith("quiet-year", StringComparison.Ordinal) ? Math.Min(reps, 3) : reps;
+            var runs = new List<(double Wall, double Cpu, NightRunResult Result)>();
+            for (int i = 0; i < wu + r; i++)
+            {
+                var request = w.Build(demoDir);
+                GC.Collect();
+                long c0 = CpuTicks();
+                var sw = Stopwatch.StartNew();
+                NightRunResult result = NightRun.Run(request);
+                sw.Stop();
+                long c1 = CpuTicks();
+                if (result.Simulation.Failure is SimulationFailure f)
+                    throw new InvalidOperationException($"bench workload {w.Name} failed at {f.Time} s: {f.Reason}");
+                // After the warm-up runs the runtime recompiles the hot methods with full optimisation on a background
+                // thread; give it a moment so that the timed runs measure optimised code, not the compiler.
+                if (i == wu - 1) Thread.Sleep(300);
+                if (i >= wu) runs.Add((sw.Elapsed.TotalSeconds, Seconds(c1 - c0), result));
+            }
+            NightRunResult last = runs[^1].Result;
+            SolverStatistics st = last.Simulation.Statistics;
+            double solverCpu = Median(runs.Select(x => x.Result.Simulation.Statistics.CpuSeconds));
+            measurements.Add(new BenchMeasurement(
+                w.Name, w.Description, last.Facts.Duration,
+                Median(runs.Select(x => x.Wall)), Median(runs.Select(x => x.Cpu)), solverCpu,
+                st.AcceptedSteps, st.RejectedSteps, st.NewtonIterations, st.Factorizations, st.Events,
+                Median(runs.Select(x => x.Result.Simulation.Statistics.AllocatedBytesPerStep)),
+                OnTimeError(last), calibration > 0 ? solverCpu / calibration : double.NaN, r));
+        }
+        return new BenchReport(quick, calibration, measurements);
+    }
+
+    /// <summary>Largest |actual − closed form| / closed form over the on-intervals the timer ended, or null.</summary>
+    public static double? OnTimeError(NightRunResult result)
+    {
+        if (result.Facts.Timers.Count == 0) return null;
+        double expected = result.Facts.Timers[0].ClosedFormWidth;
+        if (!double.IsFinite(expected)) return null;
+        double? worst = null;
+        foreach (AttributedInterval iv in result.Analysis.Intervals)
+        {
+            if (!iv.EndedByTimer || iv.End is not double end) continue;
+            double dev = Math.Abs((end - iv.Start - expected) / expected);
+            if (worst is null || dev > worst) worst = dev;
+        }
+        return worst;
+    }
+
+    private static long CpuTicks() => Environment.CpuUsage.TotalTime.Ticks;
+
+    private static double Seconds(long ticks) => ticks / (double)TimeSpan.TicksPerSecond;
+
+    private static double Median(IEnumerable<double> values)
+    {
+        double[] v = [.. values.Order()];
+        if (v.Length == 0) return double.NaN;
+        return v.Length % 2 == 1 ? v[v.Length / 2] : 0.5 * (v[v.Length / 2 - 1] + v[v.Length / 2]);
+    }
+}
