@@ -21,6 +21,7 @@ internal static class Program
         root.Subcommands.Add(SweepCommand.Create());
         root.Subcommands.Add(SpreadCommand.Create());
         root.Subcommands.Add(YearCommand.Create());
+        root.Subcommands.Add(TuneCommand.Create());
         root.Subcommands.Add(MergeCommand.Create());
         root.Subcommands.Add(BenchCommand.Create());
         root.Subcommands.Add(CompareCommand.Create());

@@ -43,6 +43,7 @@ internal static class MergeCommand
                 "sweep" => SweepCommand.Finish(header, net, SweepCommand.Axes(net, header.Settings.Where(k => k.Key.StartsWith("vary", StringComparison.Ordinal)).Select(k => k.Value)),
                     items.Select(SweepPoint.Read).ToList(), true, dir, fmt, output, error),
                 "year" => YearCommand.Finish(header, net, items.Select(YearNight.Read).ToList(), true, dir, fmt, output, error),
+                "tune" => TuneCommand.Merge(header, items, dir, fmt, output, error),
                 _ => throw new StudyFileException([$"{files[0]}: error: unknown study kind '{header.Kind}'"]),
             });
         }));
