@@ -119,7 +119,7 @@ internal static class TuneCommand
     public static int Finish(StudyHeader header, TuneStudy study, List<TuneRun> runs, bool complete, string dir, string format,
         TextWriter output, TextWriter error)
     {
-        var report = new TuneReport(header, study, runs, complete, NightRun.TouchesMains(study.Netlist) ? ReportText.MainsCautions : []);
+        var report = new TuneReport(header, study, runs, complete, NightSim.Supply.MainsExposure.Cautions(study.Netlist));
         var written = new List<string>();
         string? warning = null;
         var figures = new List<HtmlFigure>();
