@@ -43,18 +43,7 @@ internal static class SpreadCommand
                 bool progress = !pr.GetValue(o.NoProgress);
                 (List<SpreadRun> done, bool complete) = StudyCommon.RunItems("spread runs", shard.Indices(study.Total), study.Run, pr.GetValue(o.Workers), progress, error);
                 done = StudyCommon.Normalise(done, SpreadRun.Read);
-                if (!shard.IsWhole)
-                {
-                    if (!complete)
-                    {
-                        error.WriteLine($"stopped: shard {shard.Index}/{shard.Count} incomplete ({done.Count} runs finished); no shard file written. Run the shard again.");
-                        return StudyCommon.Interrupted;
-                    }
-                    string path = Path.Combine(dir, shard.FileName);
-                    OutputException.Guard(path, () => ShardFile.Write(path, header, shard, done));
-                    output.WriteLine($"wrote {path} ({done.Count} of {study.Total} runs); join the shards with: nightsim merge DIR... --out DIR");
-                    return CliErrors.Success;
-                }
+                if (!shard.IsWhole) return StudyCommon.WriteShard(shard, dir, header, done, complete, study.Total, "runs", output, error);
                 return OutputException.Guard(dir, () => Finish(header, request.Netlist, done, complete, dir, pr.GetValue(o.Format)!, output, error));
             }
             catch (UsageException u)

@@ -18,6 +18,22 @@ internal static class StudyCommon
     /// <summary>Exit code when Ctrl+C stopped a study (what finished was written).</summary>
     public const int Interrupted = 130;
 
+    /// <summary>Writes one shard's file (refused when the shard was stopped before it finished) and says how to join
+    /// the shards. <paramref name="noun"/> names the items ("runs", "points", "nights").</summary>
+    public static int WriteShard<T>(ShardSpec shard, string dir, StudyHeader header, List<T> done, bool complete, int total,
+        string noun, TextWriter output, TextWriter error) where T : IStudyItem
+    {
+        if (!complete)
+        {
+            error.WriteLine($"stopped: shard {shard.Index}/{shard.Count} incomplete ({done.Count} {noun} finished); no shard file written. Run the shard again.");
+            return Interrupted;
+        }
+        string path = Path.Combine(dir, shard.FileName);
+        OutputException.Guard(path, () => ShardFile.Write(path, header, shard, done.Cast<IStudyItem>()));
+        output.WriteLine($"wrote {path} ({done.Count} of {total} {noun}); join the shards with: nightsim merge DIR... --out DIR");
+        return CliErrors.Success;
+    }
+
     public sealed record Options(
         Argument<FileInfo> Netlist,
         Option<FileInfo?> Scenario,

@@ -43,18 +43,7 @@ internal static class SweepCommand
                 StudyHeader header = study.Header(StudyCommon.Tool);
                 (List<SweepPoint> done, bool complete) = StudyCommon.RunItems("sweep points", shard.Indices(study.Total), study.Run, pr.GetValue(o.Workers), !pr.GetValue(o.NoProgress), error);
                 done = StudyCommon.Normalise(done, SweepPoint.Read);
-                if (!shard.IsWhole)
-                {
-                    if (!complete)
-                    {
-                        error.WriteLine($"stopped: shard {shard.Index}/{shard.Count} incomplete ({done.Count} points finished); no shard file written. Run the shard again.");
-                        return StudyCommon.Interrupted;
-                    }
-                    string path = Path.Combine(dir, shard.FileName);
-                    OutputException.Guard(path, () => ShardFile.Write(path, header, shard, done));
-                    output.WriteLine($"wrote {path} ({done.Count} of {study.Total} points); join the shards with: nightsim merge DIR... --out DIR");
-                    return CliErrors.Success;
-                }
+                if (!shard.IsWhole) return StudyCommon.WriteShard(shard, dir, header, done, complete, study.Total, "points", output, error);
                 return OutputException.Guard(dir, () => Finish(header, request.Netlist, axes, done, complete, dir, pr.GetValue(o.Format)!, output, error));
             }
             catch (UsageException u)

@@ -58,18 +58,7 @@ internal static class TuneCommand
                 StudyHeader header = study.Header(StudyCommon.Tool);
                 (List<TuneRun> done, bool complete) = StudyCommon.RunItems("tune runs", shard.Indices(study.Total), study.Run, pr.GetValue(o.Workers), !pr.GetValue(o.NoProgress), error);
                 done = StudyCommon.Normalise(done, TuneRun.Read);
-                if (!shard.IsWhole)
-                {
-                    if (!complete)
-                    {
-                        error.WriteLine($"stopped: shard {shard.Index}/{shard.Count} incomplete ({done.Count} runs finished); no shard file written. Run the shard again.");
-                        return StudyCommon.Interrupted;
-                    }
-                    string path = Path.Combine(dir, shard.FileName);
-                    ShardFile.Write(path, header, shard, done);
-                    output.WriteLine($"wrote {path} ({done.Count} of {study.Total} runs); join the shards with: nightsim merge DIR... --out DIR");
-                    return CliErrors.Success;
-                }
+                if (!shard.IsWhole) return StudyCommon.WriteShard(shard, dir, header, done, complete, study.Total, "runs", output, error);
                 return Finish(header, study, done, complete, dir, format, output, error);
             }
             catch (UsageException u)

@@ -46,18 +46,7 @@ internal static class YearCommand
                 StudyHeader header = study.Header(StudyCommon.Tool);
                 (List<YearNight> done, bool complete) = StudyCommon.RunItems("year nights", shard.Indices(study.Total), study.Run, pr.GetValue(o.Workers), !pr.GetValue(o.NoProgress), error);
                 done = StudyCommon.Normalise(done, YearNight.Read);
-                if (!shard.IsWhole)
-                {
-                    if (!complete)
-                    {
-                        error.WriteLine($"stopped: shard {shard.Index}/{shard.Count} incomplete ({done.Count} nights finished); no shard file written. Run the shard again.");
-                        return StudyCommon.Interrupted;
-                    }
-                    string path = Path.Combine(dir, shard.FileName);
-                    OutputException.Guard(path, () => ShardFile.Write(path, header, shard, done));
-                    output.WriteLine($"wrote {path} ({done.Count} of {study.Total} nights); join the shards with: nightsim merge DIR... --out DIR");
-                    return CliErrors.Success;
-                }
+                if (!shard.IsWhole) return StudyCommon.WriteShard(shard, dir, header, done, complete, study.Total, "nights", output, error);
                 return OutputException.Guard(dir, () => Finish(header, request.Netlist, done, complete, dir, pr.GetValue(o.Format)!, output, error));
             }
             catch (UsageException u)
