@@ -1,4 +1,5 @@
 using System.CommandLine;
+using System.Text.Json;
 using NightSim.Netlist;
 using NightSim.Studies;
 
@@ -40,13 +41,19 @@ internal static class MergeCommand
             return OutputException.Guard(dir, () => header.Kind switch
             {
                 "spread" => SpreadCommand.Finish(header, net, items.Select(SpreadRun.Read).ToList(), true, dir, fmt, output, error),
-                "sweep" => SweepCommand.Finish(header, net, SweepCommand.Axes(net, header.Settings.Where(k => k.Key.StartsWith("vary", StringComparison.Ordinal)).Select(k => k.Value)),
-                    items.Select(SweepPoint.Read).ToList(), true, dir, fmt, output, error),
+                "sweep" => MergeSweep(header, net, items, dir, fmt, output, error),
                 "year" => YearCommand.Finish(header, net, items.Select(YearNight.Read).ToList(), true, dir, fmt, output, error),
                 "tune" => TuneCommand.Merge(header, items, dir, fmt, output, error),
                 _ => throw new StudyFileException([$"{files[0]}: error: unknown study kind '{header.Kind}'"]),
             });
         }));
         return command;
+    }
+
+    private static int MergeSweep(StudyHeader header, NetlistDefinition net, IReadOnlyList<JsonElement> items, string dir, string fmt, TextWriter output, TextWriter error)
+    {
+        List<string> specs = [.. header.Settings.Where(k => k.Key.StartsWith("vary", StringComparison.Ordinal)).Select(k => k.Value)];
+        ScenarioVariants? variants = SweepCommand.Variants(specs, header.Scenario ?? "");
+        return SweepCommand.Finish(header, net, SweepCommand.Axes(net, specs, variants), items.Select(SweepPoint.Read).ToList(), true, dir, fmt, output, error);
     }
 }

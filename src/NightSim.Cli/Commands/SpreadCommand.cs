@@ -23,7 +23,7 @@ internal static class SpreadCommand
             "extreme instead. Writes spread.json, spread.csv, spread.html, plots and runs/ (worst runs).");
         StudyCommon.Options o = StudyCommon.Add(command, DefaultOut);
         var runs = new Option<int>("--runs", "-n") { Description = "Number of random runs (default 200).", DefaultValueFactory = _ => 200, HelpName = "N" };
-        var corners = new Option<bool>("--corners") { Description = "Run nominal plus every tolerance extreme one at a time (2k+1 runs) instead of random draws." };
+        var corners = new Option<bool>("--corners") { Description = "Run nominal, every tolerance extreme one at a time (2k+1 runs), then the combined worst cases (every band at the end that shortens or lengthens the on-time, lowers or raises the switch-on level), instead of random draws." };
         var seed = new Option<ulong>("--seed") { Description = "Study seed; run i is seeded from it and i (default 1).", DefaultValueFactory = _ => 1UL, HelpName = "S" };
         command.Options.Add(runs);
         command.Options.Add(corners);
@@ -36,7 +36,7 @@ internal static class SpreadCommand
                 if (n is < 1 or > 1_000_000) throw new UsageException("--runs: give 1 to 1000000 runs");
                 if (pr.GetValue(o.Workers) is int w && w < 1) throw new UsageException("--workers: give at least 1");
                 ShardSpec shard = StudyCommon.ParseShard(pr.GetValue(o.Shard));
-                NightRunRequest request = StudyCommon.Load(pr.GetValue(o.Netlist)!.ToString(), pr.GetValue(o.Scenario)?.ToString(), error);
+                NightRunRequest request = StudyCommon.Load(pr.GetValue(o.Netlist)!.ToString(), StudyCommon.ScenarioPath(pr, o), error);
                 string dir = StudyCommon.OutDir(pr.GetValue(o.Out), DefaultOut);
                 var study = new SpreadStudy(request, n, pr.GetValue(corners), pr.GetValue(seed));
                 StudyHeader header = study.Header(StudyCommon.Tool);

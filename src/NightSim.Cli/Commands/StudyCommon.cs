@@ -36,7 +36,7 @@ internal static class StudyCommon
 
     public sealed record Options(
         Argument<FileInfo> Netlist,
-        Option<FileInfo?> Scenario,
+        Option<FileInfo[]> Scenario,
         Option<int?> Workers,
         Option<string?> Shard,
         Option<DirectoryInfo?> Out,
@@ -44,11 +44,20 @@ internal static class StudyCommon
         Option<bool> NoProgress);
 
     /// <summary>Adds the shared arguments and options to <paramref name="command"/>.</summary>
-    public static Options Add(Command command, string defaultOut)
+    /// <param name="severalScenarios">--scenario may be given more than once (the sweep runs every point in each).</param>
+    public static Options Add(Command command, string defaultOut, bool severalScenarios = false)
     {
         var o = new Options(
             new Argument<FileInfo>("NETLIST") { Description = "Netlist JSON file." },
-            new Option<FileInfo?>("--scenario", "-s") { Description = "Scenario JSON. Default: <netlist>.scenario.json beside the netlist.", HelpName = "FILE" },
+            new Option<FileInfo[]>("--scenario", "-s")
+            {
+                Description = severalScenarios
+                    ? "Scenario JSON; repeat it to run every point in each scenario. Default: <netlist>.scenario.json beside the netlist."
+                    : "Scenario JSON. Default: <netlist>.scenario.json beside the netlist.",
+                HelpName = "FILE",
+                Arity = severalScenarios ? ArgumentArity.ZeroOrMore : ArgumentArity.ZeroOrOne,
+                AllowMultipleArgumentsPerToken = false,
+            },
             new Option<int?>("--workers", "-j") { Description = "Worker threads (default: one per core). Results do not depend on it.", HelpName = "N" },
             new Option<string?>("--shard") { Description = "Run only shard i of n (1-based) and write shard-i-of-n.json; join with `nightsim merge`.", HelpName = "i/n" },
             new Option<DirectoryInfo?>("--out") { Description = $"Output folder (default {defaultOut}).", HelpName = "DIR" },
@@ -64,6 +73,9 @@ internal static class StudyCommon
         command.Options.Add(o.NoProgress);
         return o;
     }
+
+    /// <summary>The one --scenario given, or null (a study that takes one scenario).</summary>
+    public static string? ScenarioPath(ParseResult pr, Options o) => pr.GetValue(o.Scenario) is { Length: > 0 } f ? f[0].ToString() : null;
 
     public static string Tool => "nightsim " + typeof(StudyCommon).Assembly.GetName().Version?.ToString(3);
 

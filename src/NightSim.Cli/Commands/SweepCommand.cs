@@ -20,10 +20,11 @@ internal static class SweepCommand
         var command = new Command("sweep",
             "Run the scenario at every value (or pair of values) of one or two part parameters: an outcome table, " +
             "sweep.json (points[]), sweep.csv, sweep.html and a line plot (one parameter) or heat map (two) with the target boundary.");
-        StudyCommon.Options o = StudyCommon.Add(command, DefaultOut);
+        StudyCommon.Options o = StudyCommon.Add(command, DefaultOut, severalScenarios: true);
         var vary = new Option<string[]>("--vary")
         {
-            Description = "PART.PARAM=VALUES: a list (10n,22n,47n), a range with a count (1n..100n/7, log-spaced over a decade or more) or a series (E12:1n..100n). Repeat for a second parameter.",
+            Description = "PART.PARAM=VALUES: a list (10n,22n,47n), a range with a count (1n..100n/7, log-spaced over a decade or more) or a series (E12:1n..100n). " +
+                "scenario.PATH=VALUES sets a number in the scenario instead (scenario.events[0].peakLux=1k..20k/5). Repeat for a second parameter.",
             HelpName = "PART.PARAM=VALUES",
             Required = true,
             AllowMultipleArgumentsPerToken = false,
@@ -35,9 +36,17 @@ internal static class SweepCommand
             {
                 if (pr.GetValue(o.Workers) is int w && w < 1) throw new UsageException("--workers: give at least 1");
                 ShardSpec shard = StudyCommon.ParseShard(pr.GetValue(o.Shard));
-                NightRunRequest request = StudyCommon.Load(pr.GetValue(o.Netlist)!.ToString(), pr.GetValue(o.Scenario)?.ToString(), error);
-                List<SweepAxis> axes = Axes(request.Netlist, pr.GetValue(vary)!);
-                var study = new SweepStudy(request, axes);
+                FileInfo[] scenarioFiles = pr.GetValue(o.Scenario) ?? [];
+                NightRunRequest request = StudyCommon.Load(pr.GetValue(o.Netlist)!.ToString(), scenarioFiles.Length > 0 ? scenarioFiles[0].ToString() : null, error);
+                var specs = pr.GetValue(vary)!.ToList();
+                if (specs.Any(v => v.StartsWith(SweepAxis.ScenarioPrefix + "=", StringComparison.Ordinal)))
+                {
+                    throw new UsageException("--vary scenario=…: give several scenarios as --scenario FILE --scenario FILE");
+                }
+                if (scenarioFiles.Length > 1) specs.Add(SweepAxis.ScenarioPrefix + "=" + string.Join(",", scenarioFiles.Select(f => f.ToString())));
+                ScenarioVariants? variants = Variants(specs, request.ScenarioPath!);
+                List<SweepAxis> axes = Axes(request.Netlist, specs, variants);
+                var study = new SweepStudy(request, axes, variants);
                 if (study.Total > 100_000) throw new UsageException($"--vary: {study.Total} points is too many; keep it under 100000");
                 string dir = StudyCommon.OutDir(pr.GetValue(o.Out), DefaultOut);
                 StudyHeader header = study.Header(StudyCommon.Tool);
@@ -55,13 +64,22 @@ internal static class SweepCommand
         return command;
     }
 
-    /// <summary>The axes of the --vary options (a mistake is a usage error naming the part).</summary>
-    public static List<SweepAxis> Axes(NetlistDefinition net, IEnumerable<string> specs)
+    /// <summary>The scenario files the axes need (several files, or one whose numbers are swept), read once; null when
+    /// every axis is a part parameter. A file that cannot be read is an input error (exit 2).</summary>
+    public static ScenarioVariants? Variants(IReadOnlyList<string> specs, string scenarioPath)
+    {
+        string? files = specs.FirstOrDefault(v => v.StartsWith(SweepAxis.ScenarioPrefix + "=", StringComparison.Ordinal));
+        if (files is not null) return ScenarioVariants.Read([.. files[(SweepAxis.ScenarioPrefix.Length + 1)..].Split(',')]);
+        return specs.Any(v => v.StartsWith(SweepAxis.ScenarioPrefix + ".", StringComparison.Ordinal)) ? ScenarioVariants.Read([scenarioPath]) : null;
+    }
+
+    /// <summary>The axes of the --vary options (a mistake is a usage error naming the part or the scenario file).</summary>
+    public static List<SweepAxis> Axes(NetlistDefinition net, IEnumerable<string> specs, ScenarioVariants? scenarios = null)
     {
         var axes = new List<SweepAxis>();
         foreach (string spec in specs)
         {
-            SweepAxis axis = SweepStudy.Axis(net, spec, out string? err) ?? throw new UsageException(err!);
+            SweepAxis axis = SweepStudy.Axis(net, spec, out string? err, scenarios) ?? throw new UsageException(err!);
             if (axes.Any(a => a.Key == axis.Key)) throw new UsageException($"--vary: {axis.Key} is given twice");
             axes.Add(axis);
         }
@@ -95,7 +113,7 @@ internal static class SweepCommand
             SweepAxis ax = axes[0], ay = axes[1];
             var byCell = points.Where(p => axes.Count == 2).ToDictionary(p => (Array.IndexOf([.. ax.Values], p.Values[0].Value), Array.IndexOf([.. ay.Values], p.Values[1].Value)));
             figures.Add(StudyCommon.Plot(StudyPlots.HeatMap($"Targets over {ax.Key} × {ay.Key}", report.Summary() + "; green passes, red fails, black line: the target boundary; cells: on-time / problems",
-                ax.Key, ax.Unit, ax.Values, ay.Key, ay.Unit, ay.Values,
+                ax.Key, [.. ax.Values.Select(ax.Label)], ay.Key, [.. ay.Values.Select(ay.Label)],
                 (i, j) => byCell.TryGetValue((i, j), out SweepPoint? p) ? (p.Outcome.Pass, CellText(p.Outcome)) : (false, "not run")),
                 dir, "sweep-map", $"Pass/fail map over {ax.Key} × {ay.Key}", written, ref warning));
         }
@@ -137,6 +155,7 @@ internal static class SweepCommand
         if (o.FalseTriggers > 0) issues.Add(o.FalseTriggers.ToString(CultureInfo.InvariantCulture) + " false");
         if (o.ChatterBursts > 0) issues.Add("chatter");
         if (o.EarlyOffs > 0) issues.Add("early off");
+        if (!o.Pass && issues.Count == 0 && o.FailedTargets.Length > 0) issues.Add("target: " + o.FailedTargets);
         return issues.Count == 0 ? on : on + "\n" + string.Join(", ", issues);
     }
 }

@@ -46,7 +46,7 @@ internal static class TuneCommand
                 int n = pr.GetValue(confirm);
                 if (n is < 1 or > 1000) throw new UsageException("--confirm: give 1 to 1000");
                 ShardSpec shard = StudyCommon.ParseShard(pr.GetValue(o.Shard));
-                NightRunRequest request = StudyCommon.Load(pr.GetValue(o.Netlist)!.ToString(), pr.GetValue(o.Scenario)?.ToString(), error);
+                NightRunRequest request = StudyCommon.Load(pr.GetValue(o.Netlist)!.ToString(), StudyCommon.ScenarioPath(pr, o), error);
                 TuneStudy study = Build(request, pr.GetValue(vary)!, pr.GetValue(nights)!, pr.GetValue(corners), n);
                 string format = pr.GetValue(o.Format)!;
                 TextWriter plan = format == "json" ? error : output;
@@ -178,7 +178,7 @@ internal static class TuneCommand
             var byCell = s.Candidates.ToDictionary(c => (Array.IndexOf([.. a.Values], c.Values[0].Value), Array.IndexOf([.. b.Values], c.Values[1].Value)));
             figures.Add(StudyCommon.Plot(StudyPlots.HeatMap($"Predicted least margin over {a.Key} × {b.Key}",
                 "closed forms at every corner; green: predicted to meet every target; cells: predicted / simulated margin",
-                a.Key, a.Unit, a.Values, b.Key, b.Unit, b.Values,
+                a.Key, [.. a.Values.Select(a.Label)], b.Key, [.. b.Values.Select(b.Label)],
                 (i, j) => byCell.TryGetValue((i, j), out TuneCandidate? c)
                     ? (c.PredictedMargin >= 0, TuneReport.Percent(c.PredictedMargin ?? double.NaN) + (simulated.TryGetValue(c.Index, out TuneResult? r) ? "\nsim " + TuneReport.Percent(r.WorstMargin) : ""))
                     : (false, "")),

@@ -35,7 +35,7 @@ internal static class YearCommand
                 if (pr.GetValue(o.Workers) is int w && w < 1) throw new UsageException("--workers: give at least 1");
                 if (pr.GetValue(step) is < 1 or > 366) throw new UsageException("--step: give 1 to 366 days");
                 ShardSpec shard = StudyCommon.ParseShard(pr.GetValue(o.Shard));
-                NightRunRequest request = StudyCommon.Load(pr.GetValue(o.Netlist)!.ToString(), pr.GetValue(o.Scenario)?.ToString(), error);
+                NightRunRequest request = StudyCommon.Load(pr.GetValue(o.Netlist)!.ToString(), StudyCommon.ScenarioPath(pr, o), error);
                 int year = request.Scenario!.Start.Year;
                 DateOnly first = Date(pr.GetValue(from), "--from") ?? new DateOnly(year, 1, 1);
                 DateOnly last = Date(pr.GetValue(to), "--to") ?? new DateOnly(first.Year, 12, 31);

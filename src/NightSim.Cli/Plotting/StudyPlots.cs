@@ -77,12 +77,12 @@ public static class StudyPlots
 
     /// <summary>A heat map of pass (green) / fail (red) cells over two swept values, shaded by an outcome, with the
     /// boundary between passing and failing cells drawn.</summary>
-    public static PlotModel HeatMap(string title, string subtitle, string xTitle, string xUnit, IReadOnlyList<double> xs, string yTitle,
-        string yUnit, IReadOnlyList<double> ys, Func<int, int, (bool Pass, string Text)> cell)
+    public static PlotModel HeatMap(string title, string subtitle, string xTitle, IReadOnlyList<string> xs, string yTitle,
+        IReadOnlyList<string> ys, Func<int, int, (bool Pass, string Text)> cell)
     {
         PlotModel model = Model(title, subtitle);
-        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Bottom, Title = xTitle, ItemsSource = xs.Select(x => Eng(x, xUnit)).ToList(), GapWidth = 0 });
-        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Left, Title = yTitle, ItemsSource = ys.Select(y => Eng(y, yUnit)).ToList(), GapWidth = 0 });
+        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Bottom, Title = xTitle, ItemsSource = xs.ToList(), GapWidth = 0 });
+        model.Axes.Add(new CategoryAxis { Position = AxisPosition.Left, Title = yTitle, ItemsSource = ys.ToList(), GapWidth = 0 });
         var pass = OxyColor.FromRgb(0x7F, 0xC9, 0x7F);
         var failc = OxyColor.FromRgb(0xF4, 0x8F, 0x8F);
         for (int i = 0; i < xs.Count; i++)

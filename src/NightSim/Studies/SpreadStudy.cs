@@ -9,7 +9,11 @@ namespace NightSim.Studies;
 /// Monte Carlo over the parts as bought and the scenario's random events: run i draws every varied parameter uniformly
 /// within its band from streams seeded by the run's seed (derived from the study seed and i), and runs the scenario
 /// with that seed (weather from its mix when it states one). With corners, run 0 is nominal and runs 2j+1, 2j+2 put
-/// variation j at its low and high extreme with everything else nominal.
+/// variation j at its low and high extreme with everything else nominal; the runs after those are the combined worst
+/// cases: for each quantity with a closed form (on-time, switch-on light level, the trigger pin's lowest point in noise
+/// and at dusk) every band at the end that lowers it, then every band at the end that raises it
+/// (<see cref="TuneCorners"/>: the signs come from the closed forms, one band at a time, so they are known before any
+/// run and every run index stays independent of the others — shards and merge work as for random draws).
 /// </summary>
 public sealed class SpreadStudy
 {
@@ -22,8 +26,19 @@ public sealed class SpreadStudy
         Variations = ToleranceModel.For(request.Netlist);
         Corners = corners;
         Seed = seed;
-        Total = corners ? 1 + 2 * Variations.Count : runs;
+        Combined = corners
+            ? [.. TuneCorners.For(request.Netlist, request.Scenario, CombinedQuantities).Where(c => c.Ends.Count > 1)]
+            : [];
+        Total = corners ? 1 + 2 * Variations.Count + Combined.Count : runs;
     }
+
+    /// <summary>The quantities whose combined worst cases `--corners` adds, in a fixed order.</summary>
+    private static readonly string[] CombinedQuantities =
+        [TunePhysics.OnTime, TunePhysics.SwitchLux, TunePhysics.NoiseLow, TunePhysics.DuskLow];
+
+    /// <summary>With corners: the combined worst cases run after the one-band-at-a-time corners (a quantity moved by
+    /// a single band only is already covered by that band's own corner).</summary>
+    public IReadOnlyList<TuneCorner> Combined { get; }
 
     public IReadOnlyList<Variation> Variations { get; }
     public bool Corners { get; }
@@ -44,6 +59,7 @@ public sealed class SpreadStudy
             new("mode", Corners ? "corners" : "random"),
             new("runs", Total.ToString(CultureInfo.InvariantCulture)),
             new("variations", string.Join(" ", Variations.Select(v => string.Create(CultureInfo.InvariantCulture, $"{v.Key}={v.Low:R}..{v.High:R}")))),
+            .. Combined.Count > 0 ? [new KeyValuePair<string, string>("combined", string.Join("; ", Combined.Select(c => c.Label)))] : Array.Empty<KeyValuePair<string, string>>(),
         ],
     };
 
@@ -55,6 +71,18 @@ public sealed class SpreadStudy
     public (ulong Seed, string Label, string? Sky, List<KeyValuePair<string, double>> Values) Draw(int index)
     {
         var values = new List<KeyValuePair<string, double>>(Variations.Count);
+        if (Corners && index > 2 * Variations.Count)
+        {
+            TuneCorner c = Combined[index - 1 - 2 * Variations.Count];
+            List<KeyValuePair<string, double>> ends = c.Values(Variations);
+            foreach (Variation v in Variations)
+            {
+                double value = v.Nominal;
+                foreach ((string key, double x) in ends) { if (key == v.Key) value = x; }
+                values.Add(new(v.Key, value));
+            }
+            return (_base.Scenario!.Seed, "all bands: " + c.Label, null, values);
+        }
         if (Corners)
         {
             string label = "nominal";

@@ -3,17 +3,50 @@ using NightSim.Units;
 
 namespace NightSim.Studies;
 
-/// <summary>One swept part parameter: "PART.param" and its values (SI), as given on the command line.</summary>
+/// <summary>What a sweep axis sets.</summary>
+public enum SweepTarget
+{
+    /// <summary>A part parameter: "PART.param".</summary>
+    Part,
+
+    /// <summary>A number in the scenario: "scenario.events[0].peakLux".</summary>
+    ScenarioField,
+
+    /// <summary>Which scenario file: "scenario"; the values are positions in <see cref="SweepAxis.Labels"/>.</summary>
+    ScenarioFile,
+}
+
+/// <summary>One swept quantity — a part parameter, a number in the scenario or the scenario file itself — and its
+/// values (SI), as given on the command line.</summary>
 public sealed record SweepAxis(string PartId, string Parameter, IReadOnlyList<double> Values, string Text, bool LogScale, string Unit)
 {
-    public string Key => PartId + "." + Parameter;
+    /// <summary>The prefix that sends an axis to the scenario instead of a part.</summary>
+    public const string ScenarioPrefix = "scenario";
+
+    /// <summary>What the axis sets.</summary>
+    public SweepTarget Target { get; init; } = SweepTarget.Part;
+
+    /// <summary>Names of the values of a <see cref="SweepTarget.ScenarioFile"/> axis (the files), else null.</summary>
+    public IReadOnlyList<string>? Labels { get; init; }
+
+    /// <summary>The values were written with prefixes but no unit ("-1m" in a scenario): print them the same way.</summary>
+    public bool Prefixed { get; init; }
+
+    /// <summary>"PART.param", "scenario.path" or "scenario".</summary>
+    public string Key => Target == SweepTarget.ScenarioFile ? ScenarioPrefix : PartId + "." + Parameter;
+
+    /// <summary>A value as people read it: the file for a scenario axis, else the number with its prefix and unit.</summary>
+    public string Label(double value) =>
+        Labels is not null && value >= 0 && value < Labels.Count ? Labels[(int)value]
+        : Prefixed && Unit.Length == 0 ? EngineeringValue.Format(value, "x", 3)[..^1].Replace(" ", "", StringComparison.Ordinal)
+        : EngineeringValue.Format(value, Unit, 3);
 
     /// <summary>
     /// Parses the values of "--vary PART.PARAM=VALUES": a list ("10n,22n,47n"), a range with a count ("1n..100n/7",
     /// log-spaced when it spans a decade or more, else even), or a series with bounds ("E12:1n..100n").
     /// Null with <paramref name="error"/> when malformed.
     /// </summary>
-    public static IReadOnlyList<double>? ParseValues(string text, string unit, out bool logScale, out string? error)
+    public static IReadOnlyList<double>? ParseValues(string text, string? unit, out bool logScale, out string? error)
     {
         error = null;
         logScale = false;
@@ -63,7 +96,7 @@ public sealed record SweepAxis(string PartId, string Parameter, IReadOnlyList<do
         return values;
     }
 
-    private static bool Bounds(string text, string unit, out double lo, out double hi, out string? error)
+    private static bool Bounds(string text, string? unit, out double lo, out double hi, out string? error)
     {
         lo = hi = 0;
         error = null;

@@ -28,9 +28,16 @@ public sealed record SweepReport(StudyHeader Header, IReadOnlyList<SweepAxis> Ax
             w.WriteString("parameter", a.Parameter);
             w.WriteString("unit", a.Unit);
             w.WriteString("spec", a.Text);
+            w.WriteString("sets", a.Target switch { SweepTarget.ScenarioField => "scenario number", SweepTarget.ScenarioFile => "scenario file", _ => "part parameter" });
             w.WriteStartArray("values");
             foreach (double v in a.Values) w.WriteNumberValue(v);
             w.WriteEndArray();
+            if (a.Labels is not null)
+            {
+                w.WriteStartArray("labels");
+                foreach (string l in a.Labels) w.WriteStringValue(l);
+                w.WriteEndArray();
+            }
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -50,7 +57,7 @@ public sealed record SweepReport(StudyHeader Header, IReadOnlyList<SweepAxis> Ax
         sb.Append(StudyJson.CsvLine(["index", .. Axes.Select(a => a.Key), .. StudyOutcome.CsvHeader])).Append('\n');
         foreach (SweepPoint p in Points)
         {
-            sb.Append(StudyJson.CsvLine([StudyJson.Csv(p.Index), .. p.Values.Select(v => StudyJson.Csv(v.Value)), .. p.Outcome.CsvCells()])).Append('\n');
+            sb.Append(StudyJson.CsvLine([StudyJson.Csv(p.Index), .. p.Values.Select((v, i) => Axes[i].Labels is null ? StudyJson.Csv(v.Value) : Axes[i].Label(v.Value)), .. p.Outcome.CsvCells()])).Append('\n');
         }
         return sb.ToString();
     }
@@ -64,7 +71,7 @@ public sealed record SweepReport(StudyHeader Header, IReadOnlyList<SweepAxis> Ax
     {
         StudyOutcome o = p.Outcome;
         var cells = new List<string>();
-        cells.AddRange(p.Values.Select((v, i) => EngineeringValue.Format(v.Value, Axes[i].Unit, 3)));
+        cells.AddRange(p.Values.Select((v, i) => Axes[i].Label(v.Value)));
         if (!o.Pass) cells[0] = "!" + cells[0];
         cells.Add(o.SwitchOn is null ? (o.Missed ? "missed" : "—") : o.SwitchOn.Substring(11, 5));
         cells.Add(o.SwitchOnMinutesAfterSunset is double m ? string.Create(s_inv, $"{m:+0;−0} min") : "—");
@@ -82,7 +89,8 @@ public sealed record SweepReport(StudyHeader Header, IReadOnlyList<SweepAxis> Ax
 
     public string Html(IReadOnlyList<HtmlFigure> figures)
     {
-        var page = new StudyPage($"Sweep: {Header.Netlist}", string.Join(" × ", Axes.Select(a => $"{a.Key} = {a.Text} ({a.Values.Count} values)")) + $" · scenario {Header.Scenario ?? "—"}", Cautions);
+        var page = new StudyPage($"Sweep: {Header.Netlist}", string.Join(" × ", Axes.Select(a => $"{a.Key} = {a.Text} ({a.Values.Count} values)"))
+            + (Axes.Any(a => a.Target == SweepTarget.ScenarioFile) ? "" : $" · scenario {Header.Scenario ?? "—"}"), Cautions);
         page.Section("Result").Paragraph(Summary(), "verdict");
         page.Figures(figures);
         page.Section("Points").Table(Heads, Rows());

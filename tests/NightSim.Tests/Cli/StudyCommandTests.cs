@@ -96,6 +96,35 @@ public sealed class StudyCommandTests
     }
 
     [Fact]
+    public void Sweep_Over_A_Scenario_Number_And_Two_Scenarios_Merges_Like_The_Unsharded_Run()
+    {
+        string root = TempDir();
+        try
+        {
+            string net = Path.Combine(RepoPaths.Netlists, "trigger-filter-absent.json");
+            string sc1 = Path.Combine(RepoPaths.Netlists, "trigger-filter-absent.scenario.json"), sc2 = Path.Combine(RepoPaths.Netlists, "trigger-filter-present.scenario.json");
+            string whole = Path.Combine(root, "whole"), s1 = Path.Combine(root, "s1"), s2 = Path.Combine(root, "s2"), merged = Path.Combine(root, "merged");
+            string[] args = ["--vary", "scenario.events[0].amplitude=-0.2m,-1m", "--scenario", sc1, "--scenario", sc2, "--no-progress"];
+            var a = Run(["sweep", net, .. args, "--out", whole, "--workers", "1"]);
+            Assert.True(a.Exit == 0, a.Err);
+            Assert.Contains("2 of 4 points pass", a.Out, StringComparison.Ordinal);
+            Assert.True(Run(["sweep", net, .. args, "--out", s1, "--shard", "1/2"]).Exit == 0);
+            Assert.True(Run(["sweep", net, .. args, "--out", s2, "--shard", "2/2"]).Exit == 0);
+            var m = Run("merge", s1, s2, "--out", merged);
+            Assert.True(m.Exit == 0, m.Err);
+            AssertSameFiles(whole, merged, "sweep.json", "sweep.csv", "sweep.html", "sweep-map.svg");
+            Studies.StudySchemas.AssertValid("sweep", File.ReadAllBytes(Path.Combine(merged, "sweep.json")));
+
+            var once = Run("spread", net, "--scenario", sc1, "--scenario", sc2, "--out", Path.Combine(root, "bad"));
+            Assert.Equal(1, once.Exit);
+        }
+        finally
+        {
+            if (Directory.Exists(root)) Directory.Delete(root, recursive: true);
+        }
+    }
+
+    [Fact]
     public void Bad_Shard_Is_A_Usage_Mistake()
     {
         var r = Run("spread", Path.Combine(RepoPaths.Netlists, "garden-path.json"), "--shard", "3/2", "--out", TempDir());

@@ -12,7 +12,7 @@ public sealed class SpreadStudyTests
     private static readonly string[] s_toleranceNames = ["tolerance", "toleranceAbove", "r10Tolerance", "gammaTolerance", "offsetTolerance", "inputCurrentTolerance", "thresholdTolerance"];
 
     /// <summary>The demo with every tolerance 0 and the timing capacitor's leakage removed (so the closed form is ln 3·R·C).</summary>
-    private static NightRunRequest Request(double timingCapacitorTolerance)
+    private static NightRunRequest Request(double timingCapacitorTolerance, double timingResistorTolerance = 0)
     {
         NetlistDefinition net = NetlistLoader.Load(Path.Combine(RepoPaths.Netlists, "garden-path.json"));
         var parts = net.Parts.Select(p =>
@@ -23,6 +23,7 @@ public sealed class SpreadStudyTests
                 if (q.Has(name) || (p.Kind == "capacitor" && name == "tolerance")) q = q.WithNumber(name, 0);
             }
             if (p.Id == "CTIM") q = q.WithNumber("leakageCurrent", 0).WithNumber("tolerance", timingCapacitorTolerance);
+            if (p.Id == "RTIM") q = q.WithNumber("tolerance", timingResistorTolerance);
             return p with { Parameters = q };
         }).ToList();
         return new NightRunRequest
@@ -96,5 +97,30 @@ public sealed class SpreadStudyTests
         Assert.Equal(0.8 * 3300e-6, study.Draw(1).Values.Single().Value, 12);
         Assert.Equal(1.2 * 3300e-6, study.Draw(2).Values.Single().Value, 12);
         Assert.Equal("CTIM.value low", study.Draw(1).Label);
+    }
+
+    [Fact]
+    public void Corners_Add_The_Combined_Worst_Cases_Of_The_On_Time()
+    {
+        // 555 monostable: t = ln 3 · R · C (common practice, the textbook 1.1·R·C). Both bands lengthen the on-time
+        // when they rise, so the combined short corner is R and C both at their low ends, the long one both high:
+        // ln 3 · 0.95 R · 0.8 C and ln 3 · 1.05 R · 1.2 C (worst-case analysis by sensitivity signs: common practice).
+        var study = new SpreadStudy(Request(0.2, 0.05), runs: 1, corners: true, seed: 1);
+        Assert.Equal(2, study.Variations.Count);
+        Assert.Equal(1 + 2 * 2 + 2, study.Total);
+        const double r = 3.3e6, c = 3300e-6;
+        var low = study.Draw(5);
+        var high = study.Draw(6);
+        Assert.Equal("all bands: on-time low", low.Label);
+        Assert.Equal("all bands: on-time high", high.Label);
+        Assert.Equal(0.95 * r, low.Values.Single(v => v.Key == "RTIM.value").Value, 6);
+        Assert.Equal(0.8 * c, low.Values.Single(v => v.Key == "CTIM.value").Value, 12);
+        Assert.Equal(1.05 * r, high.Values.Single(v => v.Key == "RTIM.value").Value, 6);
+        Assert.Equal(1.2 * c, high.Values.Single(v => v.Key == "CTIM.value").Value, 12);
+        double shortest = study.Run(5).Outcome.OnSeconds!.Value;
+        double expected = Math.Log(3) * 0.95 * r * 0.8 * c;
+        Assert.True(Math.Abs(shortest - expected) / expected < 0.01, $"combined low corner on for {shortest:F0} s, ln3·R·C at the low ends {expected:F0} s");
+        // Shorter than either band's own low corner (ln 3 · 0.95 R · C and ln 3 · R · 0.8 C).
+        Assert.True(shortest < Math.Log(3) * r * 0.8 * c * 0.99);
     }
 }

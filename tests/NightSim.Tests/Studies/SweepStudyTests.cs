@@ -64,6 +64,74 @@ public sealed class SweepStudyTests
         Assert.NotNull(large.Outcome.SwitchOn); // the dusk edge still gets through
     }
 
+    [Fact]
+    public void Noise_Amplitude_Sweep_In_The_Scenario_Flips_The_Outcome_Where_The_RC_Calculation_Predicts()
+    {
+        // The same RC calculation, read the other way: with the filter capacitor fixed at 470 pF the peak dip is
+        // proportional to the pulse current, so the one-shot fires above the current whose dip is 8 V (555 trigger
+        // level V_CC/3, common practice). The current is a number in the scenario, swept there.
+        const double c = 470e-12;
+        double flip = 8.0 / (PeakDip(c) / 1e-3); // ≈ 2.55 mA (charge alone, 8 V · 470 pF / 2 µs, would say 1.9 mA)
+        Assert.InRange(flip, 2e-3, 3.5e-3);
+
+        string name = "trigger-filter-present";
+        string scenarioPath = Path.Combine(RepoPaths.Netlists, name + ".scenario.json");
+        NetlistDefinition net = NetlistLoader.Load(Path.Combine(RepoPaths.Netlists, name + ".json"));
+        var request = new NightRunRequest { Netlist = net, NetlistPath = name + ".json", Scenario = ScenarioLoader.LoadOrThrow(scenarioPath), ScenarioPath = scenarioPath };
+        ScenarioVariants variants = ScenarioVariants.Read([scenarioPath]);
+        string below = (-0.9 * flip).ToString("R", CultureInfo.InvariantCulture), above = (-1.1 * flip).ToString("R", CultureInfo.InvariantCulture);
+        SweepAxis amplitude = SweepStudy.Axis(net, $"scenario.events[0].amplitude={below},{above}", out string? e0, variants) ?? throw new InvalidOperationException(e0);
+        Assert.Equal(SweepTarget.ScenarioField, amplitude.Target);
+        Assert.Equal("scenario.events[0].amplitude", amplitude.Key);
+        SweepAxis cf = SweepStudy.Axis(net, "CF.value=470p", out string? e1) ?? throw new InvalidOperationException(e1);
+        SweepAxis speed = SweepStudy.Axis(net, "U1.transition=10n", out string? e2) ?? throw new InvalidOperationException(e2);
+        var study = new SweepStudy(request, [amplitude, cf, speed], variants);
+        Assert.Equal(2, study.Total);
+        SweepPoint small = study.Run(0), large = study.Run(1);
+        Assert.Equal(-0.9 * flip, small.Values[0].Value, 12);
+        Assert.Equal(0, small.Outcome.FalseTriggers);
+        Assert.True(large.Outcome.FalseTriggers >= 1, "10 % above the predicted current the burst must fire the one-shot");
+    }
+
+    [Fact]
+    public void Several_Scenario_Files_Are_An_Axis_And_Each_Point_Runs_Its_Own_File()
+    {
+        string first = Path.Combine(RepoPaths.Netlists, "garden-path.scenario.json");
+        string second = Path.Combine(RepoPaths.Netlists, "examples-sky", "garden-winter.scenario.json");
+        NetlistDefinition net = NetlistLoader.Load(Path.Combine(RepoPaths.Netlists, "garden-path.json"));
+        var request = new NightRunRequest { Netlist = net, NetlistPath = "garden-path.json", Scenario = ScenarioLoader.LoadOrThrow(first), ScenarioPath = first };
+        ScenarioVariants variants = ScenarioVariants.Read([first, second]);
+        SweepAxis files = SweepStudy.Axis(net, "scenario=" + first + "," + second, out string? e0, variants) ?? throw new InvalidOperationException(e0);
+        Assert.Equal(["garden-path", "garden-winter"], files.Labels);
+        SweepAxis ctim = SweepStudy.Axis(net, "CTIM.value=2200u,3300u", out string? e1) ?? throw new InvalidOperationException(e1);
+        var study = new SweepStudy(request, [ctim, files], variants);
+        Assert.Equal(4, study.Total);
+        LightScenario winter = ScenarioLoader.LoadOrThrow(second);
+        NightRunRequest p3 = study.Request(3); // CTIM 3300u in the second file
+        Assert.Equal(second, p3.ScenarioPath);
+        Assert.Equal(winter.Start, p3.Scenario!.Start);
+        Assert.Equal(winter.Site.Latitude, p3.Scenario.Site.Latitude);
+        Assert.Equal(3300e-6, study.ValuesOf(3)[0].Value, 12);
+        Assert.Equal(first, study.Request(0).ScenarioPath);
+    }
+
+    [Fact]
+    public void A_Scenario_Axis_That_Names_Nothing_Or_Text_Or_An_Impossible_Value_Says_Which()
+    {
+        string path = Path.Combine(RepoPaths.Netlists, "trigger-filter-present.scenario.json");
+        NetlistDefinition net = NetlistLoader.Load(Path.Combine(RepoPaths.Netlists, "trigger-filter-present.json"));
+        ScenarioVariants variants = ScenarioVariants.Read([path]);
+        Assert.Null(SweepStudy.Axis(net, "scenario.events[3].amplitude=1m,2m", out string? missing, variants));
+        Assert.Contains("nothing at $.events[3].amplitude", missing, StringComparison.Ordinal);
+        Assert.Null(SweepStudy.Axis(net, "scenario.events[0].times[0]=1,2", out string? text, variants));
+        Assert.Contains("\"22:30:00\", not a number", text, StringComparison.Ordinal);
+        Assert.Null(SweepStudy.Axis(net, "scenario.nights=1,0", out string? bad, variants));
+        Assert.Contains("does not fit the scenario", bad, StringComparison.Ordinal);
+        Assert.Contains("nights", bad, StringComparison.Ordinal);
+        Assert.False(ScenarioVariants.TryParsePath("events[x].peak", out _, out string? form));
+        Assert.Contains("[0]", form, StringComparison.Ordinal);
+    }
+
     // IEC 60063 preferred numbers: E12 from 1 n to 100 n is 1.0 … 8.2 in two decades plus 100 n (25 values).
     [Fact]
     public void Values_Parse_As_List_Range_And_Series()
