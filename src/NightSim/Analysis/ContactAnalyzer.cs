@@ -42,8 +42,8 @@ public sealed class ContactAnalyzer : IResultAnalyzer
         {
             string limit = c.InrushLimitStated
                 ? $"the {Amps(c.InrushLimit!.Value)} switch-on peak the contacts are rated for"
-                : string.Create(s_inv, $"the {Amps(c.InrushLimit!.Value)} general-purpose contacts take ({c.InrushLimitMultiple:0.#}× their {Amps(c.ContactCurrent!.Value)} resistive rating; common practice)");
-            said.Add(string.Create(s_inv, $". At switch-on such a load typically draws {c.InrushLow:0.#}–{c.InrushHigh:0.#}× that for {c.InrushDuration} (common practice): up to {Amps(c.PeakInrush!.Value)}, above {limit}"));
+                : string.Create(s_inv, $"the {Amps(c.InrushLimit!.Value)} general-purpose contacts take ({c.InrushLimitMultiple:0.#}× their {Amps(c.ContactCurrent!.Value)} resistive rating; common practice, from memory)");
+            said.Add(string.Create(s_inv, $". At switch-on such a load typically draws {c.InrushLow:0.#}–{c.InrushHigh:0.#}× that for {c.InrushDuration} (common practice, from memory): up to {Amps(c.PeakInrush!.Value)}, above {limit}"));
         }
         said.Add(". The contacts may weld shut and keep the lamp on.");
         return new Finding(Severity.Warning, "relay-contacts-may-weld", string.Concat(said), WeldFix(duty), At(facts, duty.FirstSwitchOn), c.PartId);

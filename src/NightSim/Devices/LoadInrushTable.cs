@@ -1,19 +1,5 @@
 namespace NightSim.Devices;
 
-/// <summary>One row of <see cref="LoadInrushTable"/>: what a kind of load draws at switch-on and when running.</summary>
-/// <param name="Kind">The kind of load.</param>
-/// <param name="Word">Its netlist word (relay parameter <c>loadKind</c>).</param>
-/// <param name="Title">Plain words for reports ("incandescent lamp").</param>
-/// <param name="MultipleLow">Lower end of the typical switch-on peak, as a multiple of the steady (RMS) current.</param>
-/// <param name="MultipleHigh">Upper end of the typical switch-on peak, as a multiple of the steady current; the peak
-/// the contacts are judged against.</param>
-/// <param name="Duration">How long the peak lasts, s (typical order of magnitude).</param>
-/// <param name="DurationText">The same in plain words for reports.</param>
-/// <param name="PowerFactor">Typical power factor when running (real power ÷ (RMS voltage × RMS current)).</param>
-/// <param name="Source">Where the row's values come from.</param>
-public sealed record LoadInrush(LoadKind Kind, string Word, string Title, double MultipleLow, double MultipleHigh,
-    double Duration, string DurationText, double PowerFactor, string Source);
-
 /// <summary>
 /// The typical switch-on (inrush) current and power factor of each kind of lamp load. Every value here is common
 /// practice of the trade, recalled from memory rather than measured, and is marked so in every report that uses it;
@@ -32,7 +18,7 @@ public static class LoadInrushTable
             "Ohm's law: a resistance draws its working current from the first instant (a heater's resistance changes " +
             "little with temperature); power factor 1."),
         new(LoadKind.Incandescent, "incandescent", "incandescent (filament) lamp", 10.0, 15.0, 5e-3,
-            "a few milliseconds (the first half-cycle), back to the working current within about 0.1 s", 1.0,
+            "a few milliseconds (the first half-cycle)", 1.0,
             "Common practice, from memory: a tungsten filament's resistance when cold is about a tenth to a fifteenth " +
             "of its resistance at working temperature, so the first half-cycle draws 10–15× the working current " +
             "(halogen lamps alike); a filament is a resistance, power factor 1."),

@@ -4,9 +4,6 @@ using NightSim.Units;
 
 namespace NightSim.Reporting;
 
-/// <summary>One line of a relay's contact summary: a label, the text and whether it shows a problem.</summary>
-public sealed record ContactLine(string Label, string Text, bool Problem = false);
-
 /// <summary>The contacts-against-the-lamp summary in words, shared by the terminal and the page (report.json holds
 /// the numbers): the load, its steady and switch-on current, the rating and verdict, the operations and the life.</summary>
 public static class ContactText
@@ -55,7 +52,7 @@ public static class ContactText
         if (c.ContactVoltage is double v) parts.Add(string.Create(s_inv, $"{v:0.##} V") + (d.VoltageWithinRating == false ? " (load voltage above it)" : ""));
         if (c.InrushLimit is double limit)
         {
-            string what = c.InrushLimitStated ? "inrush rating" : string.Create(s_inv, $"{c.InrushLimitMultiple:0.#}× the resistive rating; common practice");
+            string what = c.InrushLimitStated ? "inrush rating" : string.Create(s_inv, $"{c.InrushLimitMultiple:0.#}× the resistive rating; common practice, from memory");
             parts.Add($"switch-on up to {Amps(limit)} ({what})" + (d.InrushWithinRating == false ? ", the peak is above it" : ""));
         }
         bool problem = d.MayWeld || d.VoltageWithinRating == false;
