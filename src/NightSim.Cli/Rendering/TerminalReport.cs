@@ -7,7 +7,8 @@ namespace NightSim.Cli.Rendering;
 
 /// <summary>
 /// Renders a <see cref="NightReport"/> to the terminal: a verdict line per night, the caution panel, the table of
-/// nights, findings coloured by severity, one line of solver statistics.
+/// nights, the targets, each relay's contacts against its lamp, findings coloured by severity, one line of solver
+/// statistics.
 /// </summary>
 public static class TerminalReport
 {
@@ -39,6 +40,7 @@ public static class TerminalReport
         console.Write(NightsTable(report.Nights));
         console.WriteLine();
         WriteTargets(report, console);
+        WriteContacts(report.Contacts, console);
         WriteFindings(report.Findings, console, datedFindings: report.Nights.Count > 1);
         console.WriteLine();
         console.MarkupLine("[grey]" + Markup.Escape(StatisticsLine(report.Statistics)) + "[/]");
@@ -144,6 +146,23 @@ public static class TerminalReport
             foreach (string line in TargetsText.OverviewLines(report.Overview, hasTargets)) console.MarkupLine("  " + Markup.Escape(line));
             console.WriteLine();
         }
+    }
+
+    /// <summary>Each relay's contacts against its lamp: load, steady and switch-on current, rating, operations, life.</summary>
+    private static void WriteContacts(IReadOnlyList<ContactDuty> contacts, IAnsiConsole console)
+    {
+        if (contacts.Count == 0) return;
+        console.MarkupLine("[bold]Relay contacts[/] [grey](switch-on multiples: common practice, from memory)[/]");
+        foreach (ContactDuty d in contacts)
+        {
+            console.MarkupLine("  " + Markup.Escape(ContactText.Title(d)));
+            foreach (ContactLine line in ContactText.Lines(d))
+            {
+                string text = Markup.Escape(line.Text);
+                console.MarkupLine($"    [grey]{Markup.Escape(line.Label),-16}[/] {(line.Problem ? "[yellow]" + text + "[/]" : text)}");
+            }
+        }
+        console.WriteLine();
     }
 
     private static void WriteFindings(IReadOnlyList<Finding> findings, IAnsiConsole console, bool datedFindings = false)

@@ -12,5 +12,6 @@ public static class AnalyzerCatalog
         new LeakageLimitAnalyzer(),
         new StageAnalyzer(),
         new DischargeCurrentAnalyzer(),
+        new ContactAnalyzer(),
     ];
 }

@@ -42,14 +42,20 @@ public static class NightAnalysis
     public static List<(double Start, double End, int Operations)> ChatterBursts(RunFacts facts, double from, double to)
     {
         double[] times = facts.LoadTransitions.Where(t => t.Time >= from && t.Time < to).Select(t => t.Time).Order().ToArray();
+        return ChatterBursts(times);
+    }
+
+    /// <summary>Chatter bursts among switching times (run seconds, ascending): start, end and number of operations.</summary>
+    public static List<(double Start, double End, int Operations)> ChatterBursts(IReadOnlyList<double> times)
+    {
         var bursts = new List<(double, double, int)>();
         int i = 0;
-        while (i < times.Length)
+        while (i < times.Count)
         {
             int j = i;
-            while (j + 1 < times.Length && times[j + 1] - times[i] <= ChatterWindow) j++;
+            while (j + 1 < times.Count && times[j + 1] - times[i] <= ChatterWindow) j++;
             // Extend the burst while operations keep coming within the window of the previous one.
-            while (j + 1 < times.Length && times[j + 1] - times[j] <= ChatterWindow / ChatterOperations) j++;
+            while (j + 1 < times.Count && times[j + 1] - times[j] <= ChatterWindow / ChatterOperations) j++;
             int count = j - i + 1;
             if (count >= ChatterOperations)
             {

@@ -158,6 +158,9 @@ public sealed record RunFacts
     /// <summary>The relays (coil thresholds and coil voltage over time).</summary>
     public IReadOnlyList<RelayFacts> Relays { get; init; } = [];
 
+    /// <summary>The relays that switch a named load: their contacts against the load.</summary>
+    public IReadOnlyList<ContactFacts> Contacts { get; init; } = [];
+
     /// <summary>The light sensor the circuit switches on (the first one), or null.</summary>
     public SensorFacts? Sensor { get; init; }
 

@@ -20,6 +20,12 @@ public static class Wording
         return sec > 0 ? $"{m} min {sec} s" : $"{m} min";
     }
 
+    /// <summary>A long span in years: "137 years", "4.8 years", "7.5 months" (below a year).</summary>
+    public static string Years(double years) => years >= 100
+        ? years.ToString("#,0", CultureInfo.InvariantCulture) + " years"
+        : years >= 1 ? years.ToString("0.#", CultureInfo.InvariantCulture) + " years"
+        : (years * 12).ToString("0.#", CultureInfo.InvariantCulture) + " months";
+
     /// <summary>The JSON and display name of a cause: "dusk", "headlight", "self-illumination", …</summary>
     public static string Cause(LoadCause cause) => cause switch
     {

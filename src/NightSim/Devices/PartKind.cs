@@ -47,6 +47,10 @@ public sealed class PartKind
     /// one prints the mains cautions.</summary>
     public Func<PartDefinition, bool> FacesMains { get; init; } = _ => false;
 
+    /// <summary>Notes printed after the kind's parameter table in the part-kind reference (docs/part-kinds.md), e.g.
+    /// a caution; null when none.</summary>
+    public string? Notes { get; init; }
+
     /// <summary>Voltage from which a source counts as mains-level, V.</summary>
     public const double MainsVoltage = 50.0;
 

@@ -20,6 +20,10 @@ namespace NightSim.Devices;
 /// <param name="LoadNormallyClosed">True when the named load is on while the relay is released.</param>
 /// <param name="CoilTemperature">Coil (copper) temperature, °C: the coil resistance is
 /// CoilResistance·(1 + 0.00393/K·(T − 20 °C)).</param>
+/// <param name="LoadKind">What the named load is, or null when not stated.</param>
+/// <param name="LoadVoltage">RMS voltage the named load runs on, V.</param>
+/// <param name="LoadPowerFactor">The named load's power factor when stated, or null (its kind's typical value).</param>
+/// <param name="Contacts">The contacts' rating (current, voltage, electrical life, inrush), null where not stated.</param>
 public sealed record RelaySettings(
     double CoilResistance = 400.0,
     double CoilInductance = 0.5,
@@ -33,7 +37,11 @@ public sealed record RelaySettings(
     string? LoadName = null,
     double LoadPower = 0.0,
     bool LoadNormallyClosed = false,
-    double CoilTemperature = Relay.ReferenceTemperature)
+    double CoilTemperature = Relay.ReferenceTemperature,
+    LoadKind? LoadKind = null,
+    double LoadVoltage = Relay.DefaultLoadVoltage,
+    double? LoadPowerFactor = null,
+    ContactRating? Contacts = null)
 {
     /// <summary>Coil resistance at <see cref="CoilTemperature"/>, Ω.</summary>
     public double HotCoilResistance => Relay.CoilResistanceAt(CoilResistance, CoilTemperature);
@@ -75,6 +83,9 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
 {
     /// <summary>Rated coil voltage when none is given, V (the generic 12 V class).</summary>
     public const double DefaultRatedVoltage = 12.0;
+
+    /// <summary>Voltage a named load runs on when none is given, V: the 230 V mains (IEC 60038 standard voltage).</summary>
+    public const double DefaultLoadVoltage = 230.0;
 
     /// <summary>Typical pull-in as a fraction of the rated coil voltage (common practice, from memory).</summary>
     public const double TypicalPullInFraction = 0.70;
@@ -119,6 +130,19 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     private static readonly ParameterSpec s_load = new("load", ParameterType.Text, "", "Name of a load switched by the contacts (for energy and light reports), e.g. \"lamp\"");
     private static readonly ParameterSpec s_loadPower = ParameterSpec.Number("loadPower", "W", "Power of the named load when on") with { Min = 0, Max = 1e5 };
     private static readonly ParameterSpec s_loadContact = ParameterSpec.Word("loadContact", "Which contact switches the named load on", "no", "nc") with { DefaultText = "no" };
+    private static readonly ParameterSpec s_loadKind = new("loadKind", ParameterType.Text, "",
+        "What the named load is, for the current its contacts see at switch-on: " +
+        string.Join("; ", LoadInrushTable.Rows.Select(r => $"{r.Word} ({r.Title}): {InrushWords(r)}")) +
+        " (common practice, from memory; the report gives the numbers)") { Choices = LoadInrushTable.Words };
+    private static readonly ParameterSpec s_loadVoltage = ParameterSpec.Number("loadVoltage", "V",
+        "RMS voltage the named load runs on: the mains (230 V; 120 V where that is the mains) or a low-voltage lamp supply; steady current = loadPower / (loadVoltage × power factor); 50 V or more makes it a mains load for the cautions") with { Default = DefaultLoadVoltage, Min = 1, Max = 1e3 };
+    private static readonly ParameterSpec s_loadPowerFactor = ParameterSpec.Number("loadPowerFactor", "",
+        "Power factor of the named load when running (default: its loadKind's typical value, 1 when no kind is given)") with { Min = 0.05, Max = 1 };
+    private static readonly ParameterSpec s_contactCurrent = ParameterSpec.Number("contactCurrent", "A", "Rated contact current for a resistive load, from the relay's data (the report checks the lamp's steady and switch-on current against it)") with { Min = 1e-3, Max = 1e4 };
+    private static readonly ParameterSpec s_contactVoltage = ParameterSpec.Number("contactVoltage", "V", "Rated contact switching voltage, from the relay's data (checked against loadVoltage)") with { Min = 1, Max = 1e5 };
+    private static readonly ParameterSpec s_contactInrush = ParameterSpec.Number("contactInrush", "A",
+        $"Peak switch-on current the contacts are rated for, when the relay states one (a lamp or inrush rating); without it the report allows {ContactRating.GeneralPurposeInrushMultiple}× contactCurrent (common practice, from memory)") with { Min = 1e-3, Max = 1e5 };
+    private static readonly ParameterSpec s_contactLife = ParameterSpec.Number("contactLife", "", "Electrical life of the contacts: operations (one switch-on and its switch-off) at the rated load, from the relay's data; the report counts the run's operations against it") with { Min = 1, Max = 1e12 };
 
     public static PartKind Kind { get; } = new()
     {
@@ -127,11 +151,26 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         Pins = ["coilA", "coilB", "com", "no", "nc", "com2", "no2", "nc2"],
         OptionalPins = ["com", "no", "nc", "com2", "no2", "nc2"],
         PinsThatMustDiffer = ["coilA", "coilB"],
-        Parameters = [s_coilResistance, s_coilInductance, s_ratedVoltage, s_thresholds, s_pullIn, s_dropOut, s_coilTemperature, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact, s_thresholdTolerance],
+        Parameters = [s_coilResistance, s_coilInductance, s_ratedVoltage, s_thresholds, s_pullIn, s_dropOut, s_coilTemperature, s_operateTime, s_releaseTime, s_contactResistance, s_openResistance, s_transition, s_load, s_loadPower, s_loadContact, s_thresholdTolerance, s_loadKind, s_loadVoltage, s_loadPowerFactor, s_contactCurrent, s_contactVoltage, s_contactInrush, s_contactLife],
         Check = CheckDefinition,
-        FacesMains = part => part.Parameters.Has(s_load.Name),
+        Notes = ContactNotes,
+        FacesMains = part => part.Parameters.Has(s_load.Name) && part.Parameters.NumberOrDefault(s_loadVoltage) >= PartKind.MainsVoltage,
         Create = part => [FromDefinition(part)],
     };
+
+    /// <summary>What the report does with the load and contact parameters, and the contact caution, for the part-kind
+    /// reference.</summary>
+    private static string ContactNotes =>
+        "**Contacts against the lamp.** For a relay with a named `load`, every night report gives the steady load current " +
+        "`loadPower` / (`loadVoltage` × power factor) and, when `loadKind` is stated, the kind's typical switch-on peak " +
+        "(common practice, from memory: " +
+        string.Join("; ", LoadInrushTable.Rows.Select(r => $"`{r.Word}` {InrushWords(r)}, power factor {r.PowerFactor.ToString("0.##", System.Globalization.CultureInfo.InvariantCulture)}")) +
+        ") against `contactCurrent`, `contactVoltage` and the switch-on peak the contacts take (`contactInrush`, else " +
+        $"{ContactRating.GeneralPurposeInrushMultiple}× `contactCurrent`), with a warning when the contacts may weld; it counts the switch-ons, chatter " +
+        "included, against `contactLife`. A load on 50 V or more is a mains load: a low-voltage design that switches one " +
+        "gets the contact and wiring caution (contacts rated for the mains and the lamp's inrush, the mains wiring kept apart " +
+        "from the low-voltage side, a fused lamp circuit, a closed enclosure; local electrical codes and a licensed " +
+        "electrician).";
 
     private readonly RelaySettings _settings;
     private readonly double _hotResistance, _pullInCurrent, _dropOutCurrent;
@@ -210,9 +249,18 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
             LoadName: load.Length > 0 ? load : null,
             LoadPower: p.Number(s_loadPower.Name, 0.0),
             LoadNormallyClosed: p.TextOrDefault(s_loadContact) == "nc",
-            CoilTemperature: p.NumberOrDefault(s_coilTemperature));
+            CoilTemperature: p.NumberOrDefault(s_coilTemperature),
+            LoadKind: LoadInrushTable.ForWord(p.Text(s_loadKind.Name))?.Kind,
+            LoadVoltage: p.NumberOrDefault(s_loadVoltage),
+            LoadPowerFactor: p.OptionalNumber(s_loadPowerFactor.Name),
+            Contacts: new ContactRating(p.OptionalNumber(s_contactCurrent.Name), p.OptionalNumber(s_contactVoltage.Name),
+                p.OptionalNumber(s_contactLife.Name), p.OptionalNumber(s_contactInrush.Name)));
         return new Relay(part.Id, part.Id, part.Node("coilA"), part.Node("coilB"), contacts, settings);
     }
+
+    private static string InrushWords(LoadInrush r) => r.MultipleHigh <= 1
+        ? "no inrush"
+        : string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{r.MultipleLow:0.#}–{r.MultipleHigh:0.#}× at switch-on");
 
     private static bool Worst(PartParameters p) => p.TextOrDefault(s_thresholds) == "worst";
 
@@ -248,6 +296,16 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         }
         if (p.Text(s_load.Name).Length > 0 && !p.Has(s_loadPower.Name))
             yield return "a named load needs 'loadPower' (W), e.g. \"loadPower\": \"60W\"";
+        if (p.Text(s_load.Name).Length == 0)
+        {
+            foreach (ParameterSpec about in (ParameterSpec[])[s_loadKind, s_loadPowerFactor]) // loadVoltage has a default, so it is always there
+            {
+                if (p.Has(about.Name))
+                    yield return $"'{about.Name}' describes the named load, but the relay names none. hint: add \"load\": \"lamp\" and its \"loadPower\", or remove '{about.Name}'";
+            }
+        }
+        if (p.OptionalNumber(s_contactInrush.Name) is double inrush && p.OptionalNumber(s_contactCurrent.Name) is double rated && inrush < rated)
+            yield return $"contactInrush ({inrush:0.###} A) is below contactCurrent ({rated:0.###} A); a switch-on rating is a peak, at least the steady rating. hint: take both from the relay's data";
     }
 
     public RelaySettings Settings => _settings;
@@ -269,6 +327,14 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     public double LoadPower => _settings.LoadName is null ? 0.0 : _settings.LoadPower;
 
     public bool LoadOn => _settings.LoadName is not null && _settings.LoadNormallyClosed != _operated;
+
+    public LoadKind? LoadKind => _settings.LoadKind;
+
+    public double LoadVoltage => _settings.LoadVoltage;
+
+    public double? LoadPowerFactor => _settings.LoadPowerFactor;
+
+    public ContactRating ContactRating => _settings.Contacts ?? ContactRating.Unknown;
 
     /// <summary>Unknown index of the coil current (A → B), valid after Setup.</summary>
     public int CoilCurrentIndex => _coil.K;

@@ -24,13 +24,25 @@ public sealed class VoltageSource : Device
         Description = "Independent voltage source (constant, pulse, sine or points); nodes [+, −].",
         Pins = ["p", "n"],
         UsesNodeList = true,
-        Parameters = Waveform.Specs("V", 1e6),
+        Parameters = Waveform.Specs("V", 1e6, " CAUTION: a mains sine (50 V or more) makes the design non-isolated, with a lethal voltage on every node; NightSim then prints the mains cautions."),
+        Notes = MainsNote,
         Check = Waveform.CheckChoice,
         Create = def => [new VoltageSource(def.Id, def.Id, def.Node("p"), def.Node("n"), Waveform.FromParameters(def.Parameters))],
         ConductsDc = true,
         IsVoltageSource = true,
         FacesMains = def => Waveform.FromParameters(def.Parameters).PeakMagnitude >= PartKind.MainsVoltage,
     };
+
+    /// <summary>The mains caution beside the sine source in the part-kind reference. The run prints the full cautions
+    /// (Supply.MainsExposure) for every netlist with a source of 50 V or more.</summary>
+    private const string MainsNote =
+        "**Caution: mains.** A voltage source of 50 V or more — a mains `sine` (230 V: amplitude 325 V; 120 V: 170 V), " +
+        "or a `constant`, `pulse` or `points` level that reaches 50 V — stands for a circuit that is NOT isolated from " +
+        "the mains: every node, the light sensor included, can carry a lethal voltage while it is plugged in. `check`, " +
+        "`simulate`, report.json and report.html then print the mains cautions: fit a fuse in the live feed, use an " +
+        "X2-class dropper capacitor rated for the mains with a bleeder resistor across it, build it into a closed " +
+        "insulating enclosure, and never touch or adjust it while connected. NightSim is not a safety assessment: follow " +
+        "your local electrical codes, and have mains wiring done or checked by a licensed electrician.";
 
     /// <summary>Source value against time, volts.</summary>
     public Waveform Waveform { get; }

@@ -86,7 +86,10 @@ public sealed class Waveform
     }
 
     /// <summary>Parameter specs of the waveform choice (constant, pulse, sine, points) in <paramref name="unit"/> ("V" or "A").</summary>
-    public static IReadOnlyList<ParameterSpec> Specs(string unit, double maxMagnitude) =>
+    /// <param name="unit">"V" or "A".</param>
+    /// <param name="maxMagnitude">Largest magnitude of a level.</param>
+    /// <param name="sineNote">Words appended to the sine's description (a voltage source's mains caution).</param>
+    public static IReadOnlyList<ParameterSpec> Specs(string unit, double maxMagnitude, string sineNote = "") =>
     [
         ParameterSpec.Number("constant", unit, $"Constant value ({unit}).") with { Min = -maxMagnitude, Max = maxMagnitude, ExclusiveGroup = "waveform" },
         ParameterSpec.Group("pulse", $"Trapezoidal pulse ({unit}); repeatEvery absent = one pulse.",
@@ -97,7 +100,7 @@ public sealed class Waveform
             ParameterSpec.Number("fallTime", "s", "Ramp time from peak back to base.") with { Default = 1e-6, Min = 0 },
             ParameterSpec.Number("hold", "s", "Time held at peak (absent = stays at peak).") with { Min = 0 },
             ParameterSpec.Number("repeatEvery", "s", "Time from one pulse start to the next (absent = one pulse).") with { Min = 1e-12 }) with { ExclusiveGroup = "waveform" },
-        ParameterSpec.Group("sine", $"Sine wave ({unit}), e.g. mains.",
+        ParameterSpec.Group("sine", $"Sine wave ({unit}), e.g. mains.{sineNote}",
             ParameterSpec.Number("offset", unit, "Mean value.") with { Default = 0, Min = -maxMagnitude, Max = maxMagnitude },
             ParameterSpec.Number("amplitude", unit, "Peak deviation from the offset.") with { Required = true, Min = -maxMagnitude, Max = maxMagnitude },
             ParameterSpec.Number("frequency", "Hz", "Frequency.") with { Required = true, Min = 0, Max = 1e9 },

@@ -5,8 +5,8 @@ using NightSim.Units;
 namespace NightSim.Netlist;
 
 /// <summary>
-/// Generates the part-kind reference (Markdown) from <see cref="PartCatalog"/>: pins and every parameter with unit,
-/// range and default. The committed copy is docs/part-kinds.md; regenerate it with
+/// Generates the part-kind reference (Markdown) from <see cref="PartCatalog"/>: pins, every parameter with unit,
+/// range and default, and the kind's notes (a caution). The committed copy is docs/part-kinds.md; regenerate it with
 /// <c>nightsim check --write-kinds docs/part-kinds.md</c>.
 /// </summary>
 public static class NetlistReference
@@ -38,6 +38,7 @@ public static class NetlistReference
             {
                 sb.Append($"\nGive at most one of {string.Join(", ", kind.Parameters.Where(p => p.ExclusiveGroup == g).Select(p => "`" + p.Name + "`"))}.\n");
             }
+            if (kind.Notes is string notes) sb.Append($"\n{notes}\n");
         }
         return sb.ToString();
     }

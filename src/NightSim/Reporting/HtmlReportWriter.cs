@@ -6,8 +6,8 @@ namespace NightSim.Reporting;
 
 /// <summary>
 /// Writes report.html: one self-contained HTML5 page (inline CSS and inline SVG plots, no scripts, no external
-/// files): a one-line verdict per night first, then the cautions, the findings, the table of nights, the light and
-/// noise events (given by time, then drawn from the seed), the plots, the parts with the circuit hash and the solver
+/// files): a one-line verdict per night first, then the cautions, the findings, the table of nights, the targets, each
+/// relay's contacts against its lamp, the light and noise events (given by time, then drawn from the seed), the plots, the parts with the circuit hash and the solver
 /// statistics. The markup is also well-formed XML (every element closed, attributes quoted, only XML's own
 /// entities), so simple parsers and tests can read it.
 /// </summary>
@@ -34,6 +34,7 @@ public static class HtmlReportWriter
         AppendFindings(h, report.Findings);
         AppendNights(h, report.Nights);
         AppendTargets(h, report);
+        AppendContacts(h, report.Contacts);
         AppendEvents(h, report.Events);
         AppendFigures(h, figures);
         AppendParts(h, report);
@@ -212,6 +213,23 @@ public static class HtmlReportWriter
         h.Append("</section>\n");
     }
 
+    private static void AppendContacts(StringBuilder h, IReadOnlyList<ContactDuty> contacts)
+    {
+        if (contacts.Count == 0) return;
+        h.Append("<section id=\"contacts\">\n<h2>Relay contacts against the lamp</h2>\n");
+        foreach (ContactDuty d in contacts)
+        {
+            h.Append("<table class=\"contacts\">\n<caption>").Append(Esc(ContactText.Title(d))).Append("</caption>\n<tbody>\n");
+            foreach (ContactLine line in ContactText.Lines(d))
+            {
+                h.Append(line.Problem ? "<tr class=\"fail\">" : "<tr>").Append("<th scope=\"row\">").Append(Esc(line.Label))
+                 .Append("</th><td>").Append(Esc(line.Text)).Append("</td></tr>\n");
+            }
+            h.Append("</tbody>\n</table>\n");
+        }
+        h.Append("<p class=\"note\">Switch-on multiples and typical power factors are common practice of the trade, from memory; the lamp's and the relay's own data come first.</p>\n</section>\n");
+    }
+
     private static void AppendEvents(StringBuilder h, IReadOnlyList<ReportEvent> events)
     {
         h.Append("<section id=\"events\">\n<h2>Light and noise events</h2>\n");
@@ -378,6 +396,9 @@ figure { margin: 14px 0 26px; }
 figcaption { font-weight: 600; color: #17324d; margin-bottom: 6px; }
 figure svg { width: 100%; height: auto; display: block; border: 1px solid #e1e6ec; border-radius: 4px; background: #ffffff; }
 table.stats th { font-weight: 500; color: #4a5866; padding-right: 28px; }
+table.contacts { margin: 6px 0 14px; }
+table.contacts caption { text-align: left; font-weight: 600; color: #17324d; padding: 2px 0 4px; }
+table.contacts th { font-weight: 500; color: #4a5866; padding-right: 20px; white-space: nowrap; }
 footer { margin-top: 36px; color: #7a8794; font-size: 0.85em; border-top: 1px solid #e1e6ec; padding-top: 8px; }
 
 """;

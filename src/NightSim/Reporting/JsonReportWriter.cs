@@ -100,6 +100,8 @@ public static class JsonReportWriter
         }
         w.WriteEndArray();
 
+        WriteContacts(w, report.Contacts);
+
         w.WriteStartArray("events");
         foreach (ReportEvent e in report.Events)
         {
@@ -142,6 +144,51 @@ public static class JsonReportWriter
         foreach (string c in report.Cautions) w.WriteStringValue(c);
         w.WriteEndArray();
         w.WriteEndObject();
+    }
+
+    private static void WriteContacts(Utf8JsonWriter w, IReadOnlyList<ContactDuty> contacts)
+    {
+        w.WriteStartArray("contacts");
+        foreach (ContactDuty d in contacts)
+        {
+            ContactFacts c = d.Facts;
+            w.WriteStartObject();
+            w.WriteString("part", c.PartId);
+            w.WriteString("load", c.Load);
+            if (c.Kind is null) w.WriteNull("loadKind"); else w.WriteString("loadKind", c.Kind);
+            w.WriteNumber("loadPowerWatts", c.PowerWatts);
+            w.WriteNumber("loadVoltage", c.Voltage);
+            w.WriteNumber("powerFactor", c.PowerFactor);
+            w.WriteBoolean("powerFactorStated", c.PowerFactorStated);
+            w.WriteNumber("steadyCurrentAmps", Math.Round(c.SteadyCurrent, 6));
+            WriteNumberOrNull(w, "inrushMultipleLow", double.IsNaN(c.InrushLow) ? null : c.InrushLow);
+            WriteNumberOrNull(w, "inrushMultipleHigh", double.IsNaN(c.InrushHigh) ? null : c.InrushHigh);
+            WriteNumberOrNull(w, "inrushSeconds", double.IsNaN(c.InrushSeconds) ? null : c.InrushSeconds);
+            WriteNumberOrNull(w, "peakInrushAmps", c.PeakInrush is double p ? Math.Round(p, 6) : null);
+            if (c.InrushSource is null) w.WriteNull("inrushSource"); else w.WriteString("inrushSource", c.InrushSource);
+            WriteNumberOrNull(w, "contactCurrentAmps", c.ContactCurrent);
+            WriteNumberOrNull(w, "contactVoltage", c.ContactVoltage);
+            WriteNumberOrNull(w, "contactInrushLimitAmps", c.InrushLimit is double l ? Math.Round(l, 6) : null);
+            w.WriteBoolean("contactInrushLimitStated", c.InrushLimitStated);
+            WriteNumberOrNull(w, "contactLifeOperations", c.ContactLife);
+            WriteFlagOrNull(w, "steadyWithinRating", d.SteadyWithinRating);
+            WriteFlagOrNull(w, "inrushWithinRating", d.InrushWithinRating);
+            WriteFlagOrNull(w, "voltageWithinRating", d.VoltageWithinRating);
+            w.WriteBoolean("mayWeld", d.MayWeld);
+            w.WriteNumber("operations", d.Operations);
+            w.WriteNumber("chatterOperations", d.ChatterOperations);
+            WriteNumberOrNull(w, "operationsPerNight", d.OperationsPerNight is double o ? Math.Round(o, 4) : null);
+            WriteNumberOrNull(w, "lifeNights", d.LifeNights is double n ? Math.Round(n, 1) : null);
+            WriteNumberOrNull(w, "lifeYears", d.LifeYears is double y ? Math.Round(y, 3) : null);
+            WriteNumberOrNull(w, "lifeYearsWithoutChatter", d.LifeYearsWithoutChatter is double yw ? Math.Round(yw, 3) : null);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+    }
+
+    private static void WriteFlagOrNull(Utf8JsonWriter w, string name, bool? v)
+    {
+        if (v is bool b) w.WriteBoolean(name, b); else w.WriteNull(name);
     }
 
     private static void WriteTargets(Utf8JsonWriter w, Sky.DesignTargets? t)

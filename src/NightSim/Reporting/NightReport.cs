@@ -47,6 +47,9 @@ public sealed record NightReport
     /// <summary>The summary across nights (pass rate, earliest and latest switch-on, on-time range, worst night).</summary>
     public Targets.NightsOverview Overview { get; init; } = new();
 
+    /// <summary>Each relay's contacts against the load it switches (current, inrush, voltage, electrical life).</summary>
+    public IReadOnlyList<ContactDuty> Contacts { get; init; } = [];
+
     /// <summary>Mains cautions, printed whenever the design touches mains.</summary>
     public IReadOnlyList<string> Cautions { get; init; } = [];
 }

@@ -207,6 +207,7 @@ public static class NightRun
             Statistics = new ReportStatistics(st.AcceptedSteps, st.RejectedSteps, st.NewtonIterations, st.Events, st.CpuSeconds),
             Parts = ReportPart.List(request.Netlist),
             CircuitHash = ReportPart.Hash(request.Netlist),
+            Contacts = ContactDuty.All(facts),
             Cautions = Supply.MainsExposure.Cautions(request.Netlist),
             Targets = targets,
             TargetResults = checks,

@@ -58,6 +58,7 @@ public static class RunFactsBuilder
             Timers = TimingNetwork.Extract(devices, node => TimingNetwork.FixedVoltage(devices, node) ?? MeasuredSupply(sim, node)),
             Relays = devices.Select(d => d.Role).OfType<RelayCoilRole>()
                 .Select(r => new RelayFacts(r.PartId, r.PullIn, r.DropOut, (from, to) => PeakCoilVoltage(sim, r, from, to))).ToList(),
+            Contacts = ContactFactsBuilder.Build(devices),
             Sensor = sensor is null ? null : new SensorFacts(sensor.PartId, profile is null ? null : SwitchingLevel.Find(request.Netlist, request.Options)),
             SkyLux = lux,
             SensorLux = lux,

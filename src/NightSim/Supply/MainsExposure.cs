@@ -6,10 +6,12 @@ namespace NightSim.Supply;
 /// <summary>How a design meets the mains, for its cautions.</summary>
 public enum MainsExposureKind
 {
-    /// <summary>No source of 50 V or more and no mains load.</summary>
+    /// <summary>No source of 50 V or more and no mains load (a switched load on less than 50 V, such as a 12 V or
+    /// 24 V garden lamp, is not one).</summary>
     None,
 
-    /// <summary>A low-voltage circuit whose relay switches a mains load: the contacts and the lamp wiring carry mains.</summary>
+    /// <summary>A low-voltage circuit whose relay switches a mains load (a named load on 50 V or more): the contacts and
+    /// the lamp wiring carry mains.</summary>
     SwitchesMainsLoad,
 
     /// <summary>A source of 50 V or more (a mains sine, a high DC or piecewise rail): the circuit itself is not isolated.</summary>
@@ -25,7 +27,7 @@ public enum MainsExposureKind
 public static class MainsExposure
 {
     /// <summary>Sources reaching this magnitude or more make the circuit itself hazardous, volts.</summary>
-    public const double HazardousVoltage = 50.0;
+    public const double HazardousVoltage = PartKind.MainsVoltage;
 
     /// <summary>How <paramref name="devices"/> meet the mains.</summary>
     public static MainsExposureKind Classify(IEnumerable<Device> devices)
@@ -34,7 +36,7 @@ public static class MainsExposure
         foreach (Device d in devices)
         {
             if (d is VoltageSource v && v.Waveform.PeakMagnitude >= HazardousVoltage) return MainsExposureKind.NotIsolated;
-            if (d is ISwitchedLoad { LoadName: not null }) switchesLoad = true;
+            if (d is ISwitchedLoad { LoadName: not null } load && load.LoadVoltage >= HazardousVoltage) switchesLoad = true;
         }
         return switchesLoad ? MainsExposureKind.SwitchesMainsLoad : MainsExposureKind.None;
     }

@@ -231,3 +231,59 @@ public sealed class RelayTests
         Assert.Equal(9.0 / 400.0 * hot + 0.5 / hot, pulled, 1e-5);
     }
 }
+
+/// <summary>The relay's load and contact parameters as a netlist gives them, and the checks on them.</summary>
+public sealed class RelayContactParameterTests
+{
+    private static NightSim.Netlist.NetlistLoadResult Read(string relayExtra) => NetlistLoader.ReadText($$"""
+        { "name": "k", "parts": [
+          { "id": "V1", "kind": "voltage-source", "nodes": ["vcc", "gnd"], "constant": "12V" },
+          { "id": "K1", "kind": "relay", "pins": { "coilA": "vcc", "coilB": "gnd" } {{relayExtra}} }
+        ] }
+        """, "k.json");
+
+    [Fact]
+    public void Load_Kind_Voltage_And_Contact_Rating_Reach_The_Switched_Load_Role()
+    {
+        NightSim.Netlist.NetlistLoadResult r = Read(""", "load": "lamp", "loadPower": "60W", "loadKind": "incandescent", "loadVoltage": "120V", "loadPowerFactor": 0.95, "contactCurrent": "10A", "contactVoltage": "250V", "contactInrush": "80A", "contactLife": "100k" """);
+        Assert.True(r.IsValid, string.Join("\n", r.Errors));
+        ISwitchedLoad load = Relay.FromDefinition(r.Definition!.Part("K1")!);
+        Assert.Equal(LoadKind.Incandescent, load.LoadKind);
+        Assert.Equal(120.0, load.LoadVoltage);
+        Assert.Equal(0.95, load.LoadPowerFactor);
+        Assert.Equal(new ContactRating(10, 250, 1e5, 80), load.ContactRating);
+    }
+
+    [Fact]
+    public void Unstated_Values_Take_The_Mains_Voltage_And_Leave_The_Rest_Unknown()
+    {
+        NightSim.Netlist.NetlistLoadResult r = Read(""", "load": "lamp", "loadPower": "60W" """);
+        ISwitchedLoad load = Relay.FromDefinition(r.Definition!.Part("K1")!);
+        Assert.Null(load.LoadKind);
+        Assert.Equal(230.0, load.LoadVoltage); // IEC 60038 standard mains voltage
+        Assert.Null(load.LoadPowerFactor);
+        Assert.Equal(ContactRating.Unknown, load.ContactRating);
+    }
+
+    [Fact]
+    public void Load_Words_Without_A_Named_Load_And_An_Inrush_Rating_Below_The_Steady_One_Are_Refused()
+    {
+        NightSim.Netlist.NetlistLoadResult r = Read(""", "loadKind": "incandescent", "contactCurrent": "10A", "contactInrush": "5A" """);
+        Assert.False(r.IsValid);
+        Assert.Contains(r.Errors, e => e.PartId == "K1" && e.Message.Contains("'loadKind' describes the named load", StringComparison.Ordinal));
+        Assert.Contains(r.Errors, e => e.PartId == "K1" && e.Message.Contains("contactInrush (5 A) is below contactCurrent (10 A)", StringComparison.Ordinal));
+        NightSim.Netlist.NetlistLoadResult unknown = Read(""", "load": "lamp", "loadPower": "60W", "loadKind": "halogen" """);
+        Assert.False(unknown.IsValid);
+        Assert.Contains(unknown.Errors, e => e.JsonPath == "$.parts[1].loadKind");
+    }
+
+    [Theory]
+    [InlineData(230.0, true)]
+    [InlineData(50.0, true)]
+    [InlineData(24.0, false)] // extra-low voltage up to 50 V AC (IEC 60449 band I, from memory)
+    public void A_Load_Faces_Mains_From_50_V(double volts, bool mains)
+    {
+        NightSim.Netlist.NetlistLoadResult r = Read($$""", "load": "lamp", "loadPower": "20W", "loadVoltage": {{volts.ToString(System.Globalization.CultureInfo.InvariantCulture)}} """);
+        Assert.Equal(mains, Relay.Kind.FacesMains(r.Definition!.Part("K1")!));
+    }
+}

@@ -129,6 +129,23 @@ internal static class DemoReportData
             [Map(t, Lux), Map(t, Sensor), Map(t, Timing), Map(t, x => RelayOn(x) ? 1 : 0)]);
     }
 
+    /// <summary>A 300 W filament lamp on a relay with 1 A contacts (they may weld), and a load of unstated kind with
+    /// markup characters in its name on a relay without a contact rating.</summary>
+    public static IReadOnlyList<ContactDuty> Contacts() =>
+    [
+        new ContactDuty
+        {
+            Facts = new ContactFacts("K1", "lamp", 300, 230)
+            {
+                Kind = "incandescent", KindTitle = "incandescent (filament) lamp", InrushLow = 10, InrushHigh = 15, InrushSeconds = 5e-3,
+                InrushDuration = "a few milliseconds", InrushSource = "common practice, from memory",
+                ContactCurrent = 1, ContactVoltage = 250, ContactLife = 1e5, InrushLimit = 3,
+            },
+            Operations = 2, Nights = 2, FirstSwitchOn = OnAt,
+        },
+        new ContactDuty { Facts = new ContactFacts("K2", "porch <light> & 'sign'", 40, 230), Operations = 2, Nights = 2 },
+    ];
+
     public static NightReport Report() => new()
     {
         Tool = "nightsim 0.1.0",
@@ -192,6 +209,7 @@ internal static class DemoReportData
             new ReportEvent("headlights", At(HeadlightAt), At(HeadlightAt + HeadlightSeconds), 40, "car turning into the lane, 40 lx at the sensor") { DrawnFromSeed = false },
             new ReportEvent("cloud", At(4 * 3600), At(4 * 3600 + 1800), 0.4, "cloud bank, light × 0.4 <dimmer> & 'grey'"),
         ],
+        Contacts = Contacts(),
         Statistics = new ReportStatistics(184_220, 1_031, 402_118, 12, 1.84),
         Cautions = ReportText.MainsCautions,
         Parts = ReportPart.List(s_netlist),
