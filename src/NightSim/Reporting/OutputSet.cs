@@ -15,9 +15,10 @@ namespace NightSim.Reporting;
 /// that holds only files NightSim wrote (its <see cref="OutputManifest"/>; for an older folder, the names NightSim
 /// used to write): the two folders are exchanged in one step (<see cref="DirectorySwap"/>), or, where the system
 /// cannot, renamed one after the other, the earlier set kept beside as <c>….old</c> until the new one is in place
-/// (a kill between the two renames is undone by the next run). A folder that also holds other files (the user's own,
-/// or a mount point, or a folder whose parent is read-only): the files are replaced one by one, each atomically, and
-/// the other files stay; <see cref="CommitResult.Foreign"/> names them so the caller can say the set was not swapped whole.</para>
+/// (a kill between the two renames is undone by the next run). A folder that also holds other files (the user's own),
+/// or cannot be swapped (a mount point, a folder whose parent is read-only, this process's working folder): the files
+/// are replaced one by one, each atomically, and the other files stay; <see cref="CommitResult.Foreign"/> names them
+/// so the caller can say the set was not swapped whole.</para>
 /// <para>Never deleted: anything NightSim did not write. The earlier set is removed by its manifest, file by file.</para>
 /// <para>Left over by a killed run: its staging folder (marked by <see cref="StagingMarker"/>) or a swapped-out earlier
 /// set. The next run into the same folder removes them once the process that made them has ended.</para>
@@ -155,7 +156,8 @@ public sealed class OutputSet : IDisposable
                 }
             }
             Ownership own = Ownership.Of(Target);
-            if (own.Foreign.Count == 0)
+            // Swapping the folder this process works in would leave it in the removed earlier folder.
+            if (own.Foreign.Count == 0 && !HoldsWorkingDirectory(Target))
             {
                 // A marker left by a run killed just after its swap: the earlier set must not look like staging.
                 TryDeleteFile(Path.Combine(Target, StagingMarker));
@@ -171,6 +173,12 @@ public sealed class OutputSet : IDisposable
             return FileByFile(files, Ownership.Of(Target));
         }
         return FileByFile(files, Ownership.Of(Target));
+    }
+
+    private static bool HoldsWorkingDirectory(string folder)
+    {
+        string cwd = Path.TrimEndingDirectorySeparator(Directory.GetCurrentDirectory());
+        return cwd == folder || cwd.StartsWith(folder + Path.DirectorySeparatorChar, StringComparison.Ordinal);
     }
 
     /// <summary>Rename the earlier set aside, then the new one in; undo the first rename when the second fails.</summary>
