@@ -9,6 +9,9 @@ public static class InputLimits
     /// <summary>Largest input file read (netlist or scenario), bytes.</summary>
     public const long MaxInputBytes = 64L * 1024 * 1024;
 
+    /// <summary>Largest report or study shard file read back (`compare`, `merge`), bytes.</summary>
+    public const long MaxReportBytes = 1024L * 1024 * 1024;
+
     /// <summary>Most parts in one netlist.</summary>
     public const int MaxParts = 200_000;
 

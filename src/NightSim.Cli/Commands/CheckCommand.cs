@@ -120,8 +120,10 @@ internal static class CheckCommand
         if (!File.Exists(path)) return [$"{path}: error at $: file not found. hint: check the path"];
         try
         {
-            byte[] bytes = File.ReadAllBytes(path);
-            if (NightSim.Text.Utf8Check.Problem(bytes) is { } bad)
+            byte[]? bytes = NightSim.Text.Utf8Check.ReadBounded(path, InputLimits.MaxInputBytes, out string? notRead);
+            if (bytes is null)
+                return [$"{path}: error at $: the file {notRead}. hint: give a scenario JSON file; an input file may hold at most 64 MB"];
+            if ((NightSim.Text.Utf8Check.Problem(bytes) ?? NightSim.Text.JsonEscapeCheck.Problem(bytes)) is { } bad)
                 return [$"{path}:{bad.Line}:{bad.Column}: error at $: {bad.Message}. hint: {bad.Hint}"];
             int start = bytes.AsSpan().StartsWith((ReadOnlySpan<byte>)[0xEF, 0xBB, 0xBF]) ? 3 : 0;
             using JsonDocument _ = JsonDocument.Parse(bytes.AsMemory(start), new JsonDocumentOptions
@@ -130,6 +132,10 @@ internal static class CheckCommand
                 AllowTrailingCommas = true,
             });
             return [];
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            return [$"{path}: error at $: cannot read the file: {ex.Message.TrimEnd('.')}. hint: check the path"];
         }
         catch (JsonException ex)
         {

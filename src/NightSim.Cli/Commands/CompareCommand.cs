@@ -146,7 +146,7 @@ internal static class CompareCommand
         }
         try
         {
-            using JsonDocument doc = JsonDocument.Parse(File.ReadAllBytes(path), new JsonDocumentOptions { CommentHandling = JsonCommentHandling.Skip, AllowTrailingCommas = true });
+            using JsonDocument doc = JsonDocument.Parse(NightSim.Text.Utf8Check.ReadAllBounded(path, InputLimits.MaxReportBytes), new JsonDocumentOptions { CommentHandling = JsonCommentHandling.Skip, AllowTrailingCommas = true });
             JsonElement r = doc.RootElement;
             if (r.ValueKind != JsonValueKind.Object || !r.TryGetProperty("nights", out JsonElement nights) || nights.ValueKind != JsonValueKind.Array)
             {

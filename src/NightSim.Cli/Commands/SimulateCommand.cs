@@ -195,15 +195,19 @@ internal static class SimulateCommand
             return CliErrors.Unexpected;
         }
 
-        OutputException.Guard(outDir.FullName, () => outDir.Create());
+        // The two files go in as one set, replacing every file an earlier run wrote into the folder (OutputSet).
+        using (OutputSet set = OutputException.Guard(outDir.FullName, () => OutputSet.Begin(outDir.FullName)))
+        {
+            OutputException.Guard(outDir.FullName, () => AtomicFile.Write(Path.Combine(set.Staging, "trace.csv"), stream =>
+            {
+                using var writer = new StreamWriter(stream, leaveOpen: true);
+                TraceCsv.Write(result.Traces, writer);
+            }));
+            OutputException.Guard(outDir.FullName, () => AtomicFile.Write(Path.Combine(set.Staging, "statistics.json"), stream => StatisticsJson.Write(result, stream)));
+            SimulateNight.Commit(set, error);
+        }
         string tracePath = Path.Combine(outDir.FullName, "trace.csv");
         string statsPath = Path.Combine(outDir.FullName, "statistics.json");
-        OutputException.Guard(tracePath, () => AtomicFile.Write(tracePath, stream =>
-        {
-            using var writer = new StreamWriter(stream, leaveOpen: true);
-            TraceCsv.Write(result.Traces, writer);
-        }));
-        OutputException.Guard(statsPath, () => AtomicFile.Write(statsPath, stream => StatisticsJson.Write(result, stream)));
 
         var inv = CultureInfo.InvariantCulture;
         output.WriteLine($"{def.Name}: simulated {EngineeringValue.Format(stop, "s")} from " +

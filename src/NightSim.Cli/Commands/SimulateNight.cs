@@ -53,44 +53,41 @@ internal static class SimulateNight
             error.WriteLine($"--out: {s.Out}: cannot write: it is a file, not a folder. hint: give a folder name, e.g. --out out/night");
             return CliErrors.OutputFailed;
         }
-        bool created = !Directory.Exists(dir);
-        OutputException.Guard(dir, () => Directory.CreateDirectory(dir));
-        bool done = false;
-        try
+        // Every output goes into a staging folder and the set goes in place whole when it is complete: a run that
+        // fails, is killed or finds the disk full leaves the folder as it was (README "Troubleshooting").
+        using OutputSet set = OutputException.Guard(dir, () => OutputSet.Begin(dir));
+        return Run(s, loaded.Definition!, scenario, set, console, output, error);
+    }
+
+    /// <summary>Puts the run's files in place (exit 5 when that fails) and says so when the folder also holds files
+    /// NightSim did not write, which are left alone (the set then goes in file by file).</summary>
+    internal static void Commit(OutputSet set, TextWriter error)
+    {
+        OutputSet.CommitResult done = OutputException.Guard(set.Target, set.Commit);
+        if (done.Warning is not null) error.WriteLine("warning: " + done.Warning);
+        if (done.Mode == OutputSet.CommitMode.FileByFile && done.Foreign.Count > 0)
         {
-            int code = Run(s, loaded.Definition!, scenario, dir, console, output, error);
-            // A simulation failure keeps its partial outputs (report-partial.json and the rest) in the folder.
-            done = code is not (CliErrors.Unexpected or CliErrors.Interrupted) || File.Exists(Path.Combine(dir, "report-partial.json"));
-            return code;
-        }
-        finally
-        {
-            // A failed run leaves nothing behind in a folder it created itself.
-            if (!done && created) TryDelete(dir);
+            error.WriteLine($"note: {set.Target} also holds files NightSim did not write ({string.Join(", ", done.Foreign.Take(3))}{(done.Foreign.Count > 3 ? $" and {done.Foreign.Count - 3} more" : "")}); " +
+                "they were left alone and NightSim's files were replaced one by one. hint: give --out a folder of its own to have each run's files replaced as one set");
         }
     }
 
-    private static void TryDelete(string dir)
+    private static int Run(Settings s, NetlistDefinition netlist, LightScenario scenario, OutputSet set, IAnsiConsole console, TextWriter output, TextWriter error)
     {
-        try
-        {
-            Directory.Delete(dir, recursive: true);
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            // Best effort: the failure itself is what gets reported.
-        }
-    }
-
-    private static int Run(Settings s, NetlistDefinition netlist, LightScenario scenario, string dir, IAnsiConsole console, TextWriter output, TextWriter error)
-    {
+        // Files are written into the staging folder; messages name the output folder.
+        string dir = set.Staging;
         // Ctrl+C and SIGTERM stop the run at its next step; what finished is kept as a partial report. Before the first
-        // step there is nothing to keep, and the signal ends the process at once as usual.
+        // step there is nothing to keep, and the signal ends the process at once as usual (leaving no staging folder).
         using var interrupt = new CancellationTokenSource();
         var stepping = new StrongBox<bool>();
         void OnSignal(System.Runtime.InteropServices.PosixSignalContext ctx)
         {
-            if (!Volatile.Read(ref stepping.Value)) return;
+            if (!Volatile.Read(ref stepping.Value))
+            {
+                // The process ends as usual: take the (still empty) staging folder with it.
+                set.Dispose();
+                return;
+            }
             ctx.Cancel = true;
             interrupt.Cancel();
         }
@@ -117,7 +114,7 @@ internal static class SimulateNight
         {
             string clock = ReportText.Clock(result.Facts.Clock(failure.Time));
             error.WriteLine($"{s.NetlistPath}: simulation failed at {clock} (run time {failure.Time.ToString("0.######", CultureInfo.InvariantCulture)} s): {failure}");
-            WritePartial(s, result, failure, failure.Time, TotalSeconds(scenario), clock, dir, error);
+            WritePartial(s, result, failure, failure.Time, TotalSeconds(scenario), clock, set, error);
             return CliErrors.Unexpected;
         }
         if (result.Simulation.Interrupted)
@@ -127,12 +124,11 @@ internal static class SimulateNight
             double done = 100.0 * reached / Math.Max(reached, TotalSeconds(scenario));
             error.WriteLine(string.Create(CultureInfo.InvariantCulture,
                 $"{s.NetlistPath}: interrupted at {clock} (run time {reached:0.###} s, {done:0.#} % of the run)"));
-            WritePartial(s, result, null, reached, TotalSeconds(scenario), clock, dir, error);
+            WritePartial(s, result, null, reached, TotalSeconds(scenario), clock, set, error);
             return CliErrors.Interrupted;
         }
 
         NightReport report = result.Report;
-        OutputException.Guard(dir, () => RemoveOldPlots(dir));
         var written = new List<string>();
         string reportPath = Path.Combine(dir, "report.json");
         OutputException.Guard(reportPath, () => JsonReportWriter.Write(report, reportPath));
@@ -159,6 +155,7 @@ internal static class SimulateNight
         string htmlPath = Path.Combine(dir, "report.html");
         OutputException.Guard(htmlPath, () => HtmlReportWriter.Write(report, figures, htmlPath));
         written.Add(htmlPath);
+        Commit(set, error);
 
         if (s.Format == "json")
         {
@@ -170,7 +167,7 @@ internal static class SimulateNight
         {
             TerminalReport.Render(report, console);
             console.WriteLine();
-            console.MarkupLine($"[grey]wrote {written.Count} files to {Markup.Escape(dir)}: report.html, report.json, trace.csv and {written.Count - 3} plot files[/]");
+            console.MarkupLine($"[grey]wrote {written.Count} files to {Markup.Escape(set.Target)}: report.html, report.json, trace.csv and {written.Count - 3} plot files[/]");
         }
         if (plotWarning is not null) error.WriteLine("warning: " + plotWarning);
         return FailOn(report, s.FailOn, error);
@@ -179,26 +176,33 @@ internal static class SimulateNight
     /// <summary>
     /// What a failed run computed, named as partial so it is never taken for a finished run: report-partial.json (the
     /// failure: time, worst nodes with values, parts, hint), trace-partial.csv up to the failure and a plot of the last
-    /// stretch before it (last-seconds-partial.svg/png). Complete outputs of an earlier run in the folder stay as they are.
+    /// stretch before it (last-seconds-partial.svg/png). They go in as one set with the complete outputs of the run
+    /// before, which stay as they were (partial outputs of an earlier failure are replaced).
     /// </summary>
-    private static void WritePartial(Settings s, NightRunResult result, Results.SimulationFailure? failure, double reached, double planned, string clock, string dir, TextWriter error)
+    private static void WritePartial(Settings s, NightRunResult result, Results.SimulationFailure? failure, double reached, double planned, string clock, OutputSet set, TextWriter error)
     {
+        string dir = set.Staging;
         var written = new List<string>();
         string reportPath = Path.Combine(dir, "report-partial.json");
-        PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, Math.Max(planned, reached), reached, clock,
-            failure, result.Simulation.Statistics), reportPath);
+        OutputException.Guard(set.Target, () => PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, Math.Max(planned, reached), reached, clock,
+            failure, result.Simulation.Statistics), reportPath));
         written.Add(reportPath);
         string tracePath = Path.Combine(dir, "trace-partial.csv");
-        CsvTraceWriter.Write(result.Traces, tracePath);
+        OutputException.Guard(set.Target, () => CsvTraceWriter.Write(result.Traces, tracePath));
         written.Add(tracePath);
         if (!s.NoPlots && LastStretch(result, reached, failure?.Reason ?? "interrupted") is { } data)
         {
-            PlotFiles files = PlotWriter.Write(NightPlotBuilder.Build(data), dir, data.FileStem);
+            PlotFiles files = OutputException.Guard(set.Target, () => PlotWriter.Write(NightPlotBuilder.Build(data), dir, data.FileStem));
             written.Add(files.SvgPath);
             if (files.PngPath is not null) written.Add(files.PngPath);
         }
-        error.WriteLine($"kept what was computed up to {clock}: {string.Join(", ", written.Select(Path.GetFileName))} in {dir}");
+        OutputException.Guard(set.Target, () => set.CarryOver(name => !IsPartial(name)));
+        Commit(set, error);
+        error.WriteLine($"kept what was computed up to {clock}: {string.Join(", ", written.Select(Path.GetFileName))} in {set.Target}");
     }
+
+    /// <summary>An output of a run that stopped early ("report-partial.json", "last-seconds-partial.png", …).</summary>
+    private static bool IsPartial(string name) => Path.GetFileName(name).Contains("-partial.", StringComparison.Ordinal);
 
     /// <summary>The recorded node voltages over the last stretch before the failure (the last 200 recorded points).</summary>
     private static PlotData? LastStretch(NightRunResult result, double reached, string reason)
@@ -228,20 +232,6 @@ internal static class SimulateNight
     /// <summary>Run seconds of the whole scenario window, nights × 24 h from local noon (a night across a daylight-saving
     /// change is an hour shorter or longer: the fraction done is approximate there).</summary>
     private static double TotalSeconds(LightScenario scenario) => scenario.Nights * 86400.0;
-
-    /// <summary>Plots of an earlier run in the same folder would sit beside the new ones and mislead: remove them.</summary>
-    private static void RemoveOldPlots(string dir)
-    {
-        // The partial outputs of an earlier failed run no longer describe this folder's complete run.
-        foreach (string f in Directory.EnumerateFiles(dir, "*-partial.*")) File.Delete(f);
-        foreach (string pattern in (string[])["night-*", "zoom-*", "detail-*"])
-        {
-            foreach (string f in Directory.EnumerateFiles(dir, pattern))
-            {
-                if (f.EndsWith(".svg", StringComparison.Ordinal) || f.EndsWith(".png", StringComparison.Ordinal)) File.Delete(f);
-            }
-        }
-    }
 
     /// <summary>Exit 4 when a finding is at or above --fail-on (warning or error), else 0.</summary>
     private static int FailOn(NightReport report, string? failOn, TextWriter error)

@@ -3,22 +3,30 @@ namespace NightSim.Netlist;
 /// <summary>"Did you mean …?" suggestions by edit distance (Levenshtein, case-insensitive).</summary>
 public static class NearestName
 {
+    /// <summary>Longest name that gets a suggestion: a longer one is no typing slip, and comparing long names costs
+    /// time in the product of their lengths.</summary>
+    public const int MaxLength = 64;
+
     /// <summary>The candidate closest to <paramref name="name"/>, or null when none is close enough
-    /// (distance at most max(2, length / 3)).</summary>
+    /// (distance at most max(2, length / 3)) or the name is longer than <see cref="MaxLength"/>.</summary>
     public static string? Find(string name, IEnumerable<string> candidates)
     {
+        if (name.Length > MaxLength) return null;
         string? best = null;
         int bestDistance = int.MaxValue;
+        int limit = Math.Max(2, name.Length / 3);
+        string lower = name.ToLowerInvariant();
         foreach (string c in candidates)
         {
-            int d = Distance(name.ToLowerInvariant(), c.ToLowerInvariant());
+            // The distance is at least the difference in length: such a candidate cannot be close enough.
+            if (Math.Abs(c.Length - name.Length) > limit) continue;
+            int d = Distance(lower, c.ToLowerInvariant());
             if (d < bestDistance)
             {
                 best = c;
                 bestDistance = d;
             }
         }
-        int limit = Math.Max(2, name.Length / 3);
         return bestDistance <= limit ? best : null;
     }
 

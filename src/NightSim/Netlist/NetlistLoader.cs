@@ -64,7 +64,7 @@ public static class NetlistLoader
     private static NetlistLoadResult ReadUtf8(byte[] utf8, string file)
     {
         var session = new Session(file);
-        if (Utf8Check.Problem(utf8) is { } bad)
+        if ((Utf8Check.Problem(utf8) ?? JsonEscapeCheck.Problem(utf8)) is { } bad)
         {
             session.Error(bad.Line, bad.Column, "$", null, bad.Message, bad.Hint);
             return session.Result(null);
@@ -691,6 +691,9 @@ public static class NetlistLoader
             return ok ? list : null;
         }
 
+        /// <summary>Single-connection nodes that get a "did you mean" suggestion; the rest get the plain hint.</summary>
+        private const int MaxNodeSuggestions = 50;
+
         private void CheckNodes(JsonTree partsArray, List<PartKind?> kinds)
         {
             var byNode = new Dictionary<string, List<NodeRef>>(StringComparer.Ordinal);
@@ -717,14 +720,17 @@ public static class NetlistLoader
                 Error(partsArray, "$.parts", null, $"the netlist has {publicNodes.Count} nodes, more than the limit of {InputLimits.MaxNodes} nodes",
                     "split the circuit, or simulate the part of it that matters");
             }
+            int suggested = 0;
             foreach (string node in publicNodes)
             {
                 List<NodeRef> refs = byNode[node];
                 if (refs.Count == 1 && !_nodesOnBadPins.Contains(node))
                 {
                     NodeRef r = refs[0];
-                    // A misspelt ground ("0x", "gdn", "GND1") is far more likely than a near miss of another node.
-                    string? near = Ground.LooksLike(node) ? Ground.Node : NearestName.Find(node, publicNodes.Where(n => n != node));
+                    // A misspelt ground ("0x", "gdn", "GND1") is far more likely than a near miss of another node. Each
+                    // suggestion looks at every node: only the first few get one, so a netlist of many loose nodes stays linear.
+                    string? near = Ground.LooksLike(node) ? Ground.Node
+                        : ++suggested <= MaxNodeSuggestions ? NearestName.Find(node, publicNodes.Where(n => n != node)) : null;
                     Error(r.Line, r.Column, r.Path, r.PartId, $"node \"{node}\" has a single connection",
                         near == Ground.Node ? $"did you mean \"{Ground.Node}\"? ground is written \"{Ground.Node}\""
                         : near is not null ? $"did you mean \"{near}\"? every node needs at least two connections" : "connect it to another part, or check the spelling");

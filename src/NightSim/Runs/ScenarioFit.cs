@@ -19,7 +19,7 @@ public static class ScenarioFit
         JsonLocator? locator = null;
         try
         {
-            if (File.Exists(scenarioPath)) locator = new JsonLocator(File.ReadAllBytes(scenarioPath));
+            if (File.Exists(scenarioPath)) locator = new JsonLocator(Text.Utf8Check.ReadAllBounded(scenarioPath, InputLimits.MaxInputBytes));
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {

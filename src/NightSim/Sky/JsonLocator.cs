@@ -53,9 +53,9 @@ public sealed class JsonLocator
                 else if (tt is JsonTokenType.StartArray) stack.Add((path, true, 0));
             }
         }
-        catch (JsonException)
+        catch (Exception ex) when (ex is JsonException or InvalidOperationException)
         {
-            // Partial map; the syntax error itself is reported by the loader.
+            // Partial map; the syntax error (or a key that is not text) is reported by the loader.
         }
     }
 

@@ -16,6 +16,16 @@ public static class ScenarioLoader
     /// <summary>Shortest event length accepted in minutes (one second): shorter passes only multiply breakpoints.</summary>
     public const double MinEventMinutes = 1.0 / 60.0;
 
+    /// <summary>Earliest year a scenario may start in.</summary>
+    public const int FirstYear = 1900;
+
+    /// <summary>Latest year a scenario may start in (its nights may run on into the next years).</summary>
+    public const int LastYear = 2200;
+
+    /// <summary>Longest headlight pass, rise or fall and longest noise pulse, seconds (one hour): longer is no pass or
+    /// pulse but steady light or a supply fault, and would reach past the run.</summary>
+    public const double MaxPulseSeconds = 3600;
+
     private static readonly string[] s_topLevel =
         ["$schema", "name", "description", "site", "start", "nights", "seed", "sensor", "channels", "weather", "events", "lightLog", "targets", "weatherMix"];
 
@@ -58,7 +68,7 @@ public static class ScenarioLoader
         LightEventCatalog? catalog, string? sourceFile)
     {
         catalog ??= LightEventCatalog.Default;
-        if (Utf8Check.Problem(utf8) is { } bad)
+        if ((Utf8Check.Problem(utf8) ?? JsonEscapeCheck.Problem(utf8)) is { } bad)
         {
             errors = [new ScenarioError(fileName, "$", bad.Message, bad.Hint, bad.Line, bad.Column)];
             return null;
@@ -111,6 +121,9 @@ public static class ScenarioLoader
         string? startText = ctx.String(root, "$", "start", required: true);
         if (startText is not null && !DateOnly.TryParseExact(startText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out start))
             ctx.Error("$.start", $"\"{startText}\" is not a date", "write the date of the first night as \"YYYY-MM-DD\"");
+        else if (startText is not null && (start.Year < FirstYear || start.Year > LastYear))
+            ctx.Error("$.start", string.Create(CultureInfo.InvariantCulture, $"the year {start.Year} is outside {FirstYear}…{LastYear}"),
+                "the sun and moon positions are computed for those years; write a date in them, e.g. \"2026-11-20\"");
         int nights = (int)(ctx.Integer(root, "$", "nights", min: 1, max: InputLimits.MaxNights) ?? 1);
         long? seedValue = ctx.Integer(root, "$", "seed", min: 0);
         ulong seed = seedValue is long sv ? (ulong)sv : LightScenario.DefaultSeed;

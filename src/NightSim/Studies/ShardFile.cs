@@ -31,7 +31,7 @@ public sealed record ShardFile(StudyHeader Header, ShardSpec Shard, IReadOnlyLis
     {
         try
         {
-            using JsonDocument doc = JsonDocument.Parse(File.ReadAllBytes(path), StudyJson.ReadOptions);
+            using JsonDocument doc = JsonDocument.Parse(Text.Utf8Check.ReadAllBounded(path, InputLimits.MaxReportBytes), StudyJson.ReadOptions);
             JsonElement root = doc.RootElement;
             StudyHeader header = StudyHeader.Read(root);
             JsonElement sh = root.GetProperty("shard");

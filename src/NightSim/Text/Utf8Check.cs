@@ -53,30 +53,51 @@ public static class Utf8Check
     private static bool IsLeadByte(byte b) => b >= 0xC2 && b <= 0xF4;
 
     /// <summary>Reads at most <paramref name="limit"/> bytes of <paramref name="path"/>; null with a reason when the file
-    /// is larger (or endless, as a device is) or cannot be read as a plain file.</summary>
+    /// is larger, or is no regular file: a named pipe (refused at once, without waiting for a writer), a socket, a
+    /// terminal or a device such as /dev/zero that gives bytes without end.</summary>
     public static byte[]? ReadBounded(string path, long limit, out string? problem)
     {
         problem = null;
-        using var fs = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1, FileOptions.SequentialScan);
+        using FileStream fs = NonBlockingOpen.OpenRead(path);
         if (!fs.CanSeek)
         {
-            problem = "is not a regular file (a pipe, socket or device)";
+            problem = "is not a regular file (a named pipe, socket or terminal)";
             return null;
         }
-        var buffer = new MemoryStream();
+        long size = fs.Length;
+        if (size > limit)
+        {
+            problem = TooLarge(limit);
+            return null;
+        }
+        var buffer = new MemoryStream((int)Math.Min(size + 1, limit + 1));
         byte[] chunk = new byte[81920];
         int n;
         while ((n = fs.Read(chunk, 0, chunk.Length)) > 0)
         {
             buffer.Write(chunk, 0, n);
+            // A device such as /dev/zero reports no size and gives bytes without end.
+            if (size == 0)
+            {
+                problem = "is not a regular file (a device)";
+                return null;
+            }
             if (buffer.Length > limit)
             {
-                problem = string.Create(CultureInfo.InvariantCulture, $"is larger than the limit of {limit / (1024 * 1024)} MB of input (or is not a regular file)");
+                problem = TooLarge(limit);
                 return null;
             }
         }
         return buffer.ToArray();
     }
+
+    /// <summary>The whole of <paramref name="path"/> through <see cref="ReadBounded"/>; an <see cref="IOException"/>
+    /// naming the file and the reason when it is no regular file or is larger than <paramref name="limit"/>.</summary>
+    public static byte[] ReadAllBounded(string path, long limit) =>
+        ReadBounded(path, limit, out string? problem) ?? throw new IOException($"{path}: the file {problem}");
+
+    private static string TooLarge(long limit) =>
+        string.Create(CultureInfo.InvariantCulture, $"is larger than the limit of {limit / (1024 * 1024)} MB of input");
 
     /// <summary>The UTF-8 text of <paramref name="bytes"/> without a leading byte-order mark.</summary>
     public static string Decode(byte[] bytes)

@@ -229,4 +229,86 @@ public sealed class RobustInputTests : IDisposable
         Assert.Equal(2, exit);
         Assert.Contains($"{scenarioPath}:{line}:{column}: error at $.events[0].node", err, StringComparison.Ordinal);
     }
+
+    /// <summary>Runs the command on another thread; a run still going after 60 s is a hang (the test fails).</summary>
+    private static (int Exit, string Out, string Err) RunWithin(params string[] args)
+    {
+        Task<(int, string, string)> run = Task.Run(() => Run(args));
+        Assert.True(run.Wait(TimeSpan.FromSeconds(60)), $"nightsim {string.Join(' ', args)} did not end: it waits on its input");
+        return run.Result;
+    }
+
+    [Fact]
+    public void A_Named_Pipe_Or_A_Device_As_Input_Is_Refused_At_Once()
+    {
+        if (!OperatingSystem.IsLinux() && !OperatingSystem.IsMacOS()) return; // named pipes and /dev/zero are POSIX
+        string pipe = Path.Combine(_dir, "pipe.json");
+        using (var mk = System.Diagnostics.Process.Start("mkfifo", [pipe])!) mk.WaitForExit();
+        Assert.True(File.Exists(pipe));
+
+        // Nothing ever writes to the pipe: opening it to read the usual way would wait for ever.
+        (int exit, _, string err) = RunWithin("check", pipe);
+        Assert.Equal(2, exit);
+        Assert.Contains($"{pipe}: error at $: the file is not a regular file (a named pipe", err, StringComparison.Ordinal);
+
+        (exit, _, err) = RunWithin("check", Rc, pipe);
+        Assert.Equal(2, exit);
+        Assert.Contains($"{pipe}: error at $: the file is not a regular file", err, StringComparison.Ordinal);
+
+        (exit, _, err) = RunWithin("simulate", Path.Combine(RepoPaths.Netlists, "garden-path.json"), "--scenario", pipe, "--out", Path.Combine(_dir, "o"), "--no-progress");
+        Assert.Equal(2, exit);
+        Assert.Contains("not a regular file", err, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(Path.Combine(_dir, "o")));
+
+        // A device gives bytes without end (/dev/zero) and says it has none: refused at the first bytes, not after 64 MB.
+        (exit, _, err) = RunWithin("check", "/dev/zero");
+        Assert.Equal(2, exit);
+        Assert.Contains("/dev/zero: error at $: the file is not a regular file (a device)", err, StringComparison.Ordinal);
+
+        // A light log read from a pipe or a device.
+        string scenario = File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "data", "scenarios", "good-log.scenario.json"));
+        foreach (string log in (string[])[pipe, "/dev/urandom"])
+        {
+            string path = Write("log.scenario.json", Encoding.UTF8.GetBytes(scenario.Replace("\"good-log.csv\"", System.Text.Json.JsonSerializer.Serialize(log), StringComparison.Ordinal)));
+            (exit, _, err) = RunWithin("check", Rc, path);
+            Assert.Equal(2, exit);
+            Assert.Contains($"error at $.lightLog.file: light log \"{log}\" is not a regular file", err, StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
+    public void Half_A_Surrogate_Pair_In_A_String_Is_Located()
+    {
+        // RFC 8259 §8.2: "\ud800" alone is allowed by the JSON grammar but is no Unicode character.
+        string netlist = File.ReadAllText(Rc).Replace("\"name\": \"rc-step\"", "\"name\": \"rc\\ud800step\"", StringComparison.Ordinal);
+        string path = Write("surrogate.json", Encoding.UTF8.GetBytes(netlist));
+        string[] lines = netlist.ReplaceLineEndings("\n").Split('\n');
+        int line = Array.FindIndex(lines, l => l.Contains("\\ud800", StringComparison.Ordinal)) + 1;
+        int column = lines[line - 1].IndexOf("\"rc\\ud800", StringComparison.Ordinal) + 1;
+        (int exit, _, string err) = Run("check", path);
+        Assert.Equal(2, exit);
+        Assert.Contains($"{path}:{line}:{column}: error at $: the string here holds a \\u escape between \\ud800 and \\udfff without its other half", err, StringComparison.Ordinal);
+
+        string scenario = File.ReadAllText(Path.Combine(RepoPaths.Netlists, "garden-path.scenario.json"))
+            .Replace("\"sky\": \"clear\"", "\"sky\": \"clear\\udc00\"", StringComparison.Ordinal);
+        string scenarioPath = Write("surrogate.scenario.json", Encoding.UTF8.GetBytes(scenario));
+        (exit, _, err) = Run("check", Path.Combine(RepoPaths.Netlists, "garden-path.json"), scenarioPath);
+        Assert.Equal(2, exit);
+        Assert.Contains($"{scenarioPath}:", err, StringComparison.Ordinal);
+        Assert.Contains("without its other half", err, StringComparison.Ordinal);
+        Assert.DoesNotContain("unexpected failure", err, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("\"seconds\": 4", "\"seconds\": 1e308", "$.events[0].seconds")]
+    [InlineData("\"start\": \"2026-11-20\"", "\"start\": \"9999-12-31\"", "$.start")]
+    public void Values_That_Would_Reach_Past_The_Calendar_Are_Refused(string from, string to, string jsonPath)
+    {
+        string scenario = File.ReadAllText(Path.Combine(RepoPaths.Netlists, "garden-path-driveway.scenario.json")).Replace(from, to, StringComparison.Ordinal);
+        Assert.Contains(to, scenario, StringComparison.Ordinal);
+        string path = Write("far.scenario.json", Encoding.UTF8.GetBytes(scenario));
+        (int exit, _, string err) = Run("check", Path.Combine(RepoPaths.Netlists, "garden-path-driveway.json"), path);
+        Assert.Equal(2, exit);
+        Assert.Contains($"error at {jsonPath}: ", err, StringComparison.Ordinal);
+    }
 }

@@ -20,4 +20,15 @@ public sealed class NearestNameTests
         Assert.Equal("leakageCurrent", NearestName.Find("LeakageCurent", ["leakageResistance", "leakageCurrent"]));
         Assert.Null(NearestName.Find("transformer", ["resistor", "capacitor"]));
     }
+
+    [Fact]
+    public void Long_Names_Get_No_Suggestion_And_Far_Lengths_Are_Not_Compared()
+    {
+        // A node name of a million characters beside another long one: comparing them would take 10^12 steps.
+        string huge = new('x', 1_000_000);
+        Assert.Null(NearestName.Find(huge, [huge[..999_999], "vcc"]));
+        Assert.Null(NearestName.Find(new string('y', NearestName.MaxLength + 1), [new string('y', NearestName.MaxLength)]));
+        // Within the limit the closest name still wins, whatever the length of the others.
+        Assert.Equal("trig", NearestName.Find("trgi", [huge, "trig", "tr"]));
+    }
 }

@@ -78,7 +78,10 @@ public sealed class InterruptionTests
             Assert.Contains("\"stoppedBy\": \"interruption\"", report, StringComparison.Ordinal);
             Assert.True(File.Exists(Path.Combine(dir, "trace-partial.csv")));
             Assert.False(File.Exists(Path.Combine(dir, "report.json")));
-            Assert.DoesNotContain(Directory.GetFiles(dir), f => f.EndsWith(".tmp", StringComparison.Ordinal) || Path.GetFileName(f).StartsWith('.'));
+            // No temporary file, inside the folder or beside it; the one hidden file is the list of what NightSim wrote.
+            Assert.DoesNotContain(Directory.GetFiles(dir), f => f.EndsWith(".tmp", StringComparison.Ordinal)
+                || (Path.GetFileName(f).StartsWith('.') && Path.GetFileName(f) != NightSim.Reporting.OutputManifest.FileName));
+            Assert.DoesNotContain(Directory.GetDirectories(Path.GetDirectoryName(dir)!), d => Path.GetFileName(d).StartsWith("." + Path.GetFileName(dir) + ".", StringComparison.Ordinal));
         }
         finally
         {

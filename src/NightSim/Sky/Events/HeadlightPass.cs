@@ -80,9 +80,9 @@ public sealed class HeadlightDefinition : IEventDefinition
         ctx.CheckProperties(e, path, "kind", "times", "perHour", "from", "to", "peakLux", "seconds", "riseSeconds", "fallSeconds", "channel");
         var timing = EventTiming.Parse(e, path, ctx);
         double? peak = ctx.Number(e, path, "peakLux", "lx", required: true, min: 0);
-        double seconds = ctx.Number(e, path, "seconds", "s", min: 0, minExclusive: true) ?? 4.0;
-        double rise = ctx.Number(e, path, "riseSeconds", "s", min: 0) ?? Math.Min(0.5, seconds / 4);
-        double fall = ctx.Number(e, path, "fallSeconds", "s", min: 0) ?? rise;
+        double seconds = ctx.Number(e, path, "seconds", "s", min: 0, minExclusive: true, max: ScenarioLoader.MaxPulseSeconds) ?? 4.0;
+        double rise = ctx.Number(e, path, "riseSeconds", "s", min: 0, max: ScenarioLoader.MaxPulseSeconds) ?? Math.Min(0.5, seconds / 4);
+        double fall = ctx.Number(e, path, "fallSeconds", "s", min: 0, max: ScenarioLoader.MaxPulseSeconds) ?? rise;
         string channel = ctx.String(e, path, "channel") ?? LightScenario.DefaultChannel;
         if (rise + fall > seconds)
         {

@@ -56,7 +56,7 @@ public sealed class NoiseDefinition : IEventDefinition
         else if (kind != "voltage") { ctx.Error($"{path}.as", $"\"{kind}\" is not a pulse type", "write \"voltage\" or \"current\""); return null; }
         var timing = EventTiming.Parse(e, path, ctx);
         double? amp = ctx.Number(e, path, "amplitude", q == NoiseQuantity.Voltage ? "V" : "A", required: true);
-        double? width = ctx.Number(e, path, "width", "s", required: true, min: 0, minExclusive: true);
+        double? width = ctx.Number(e, path, "width", "s", required: true, min: 0, minExclusive: true, max: ScenarioLoader.MaxPulseSeconds);
         if (node is null || timing is null || amp is null || width is null) return null;
         return new NoiseDefinition(node, timing, amp.Value, width.Value, q);
     }
