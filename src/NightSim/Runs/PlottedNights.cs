@@ -25,24 +25,25 @@ public static class PlottedNights
     /// <param name="targets">Each night's target checks (empty without targets).</param>
     public static IReadOnlyList<DateOnly> Select(IReadOnlyList<NightSummary> nights, IReadOnlyList<NightTargets> targets)
     {
-        if (nights.Count <= AllUpTo) return [.. nights.Select(n => n.Date)];
         var byDate = new Dictionary<DateOnly, NightTargets>();
         foreach (NightTargets t in targets) byDate[t.Date] = t;
-        var ranked = new List<(NightSummary Night, Trouble Trouble)>();
-        foreach (NightSummary n in nights)
-        {
-            Trouble t = TroubleOf(n, byDate.GetValueOrDefault(n.Date));
-            if (t.Gravest < Grave.None) ranked.Add((n, t));
-        }
+        return Select([.. nights.Select(n => (n.Date, TroubleOf(n, byDate.GetValueOrDefault(n.Date))))]);
+    }
+
+    /// <summary>The dates to plot, in date order, from what went wrong on each date (in date order).</summary>
+    public static IReadOnlyList<DateOnly> Select(IReadOnlyList<(DateOnly Date, Trouble Trouble)> nights)
+    {
+        if (nights.Count <= AllUpTo) return [.. nights.Select(n => n.Date)];
+        var ranked = nights.Where(n => n.Trouble.Gravest < Grave.None).ToList();
         if (ranked.Count == 0) return [nights[0].Date];
         return [.. ranked
             .OrderBy(r => r.Trouble.Gravest)
             .ThenByDescending(r => r.Trouble.Kinds)
             .ThenBy(r => r.Trouble.WorstMargin)
             .ThenByDescending(r => r.Trouble.Events)
-            .ThenBy(r => r.Night.Date)
+            .ThenBy(r => r.Date)
             .Take(MostInteresting)
-            .Select(r => r.Night.Date)
+            .Select(r => r.Date)
             .Order()];
     }
 
@@ -71,15 +72,25 @@ public static class PlottedNights
     public readonly record struct Trouble(Grave Gravest, int Kinds, double WorstMargin, int Events);
 
     /// <summary>The trouble of one night.</summary>
-    public static Trouble TroubleOf(NightSummary n, NightTargets? targets)
+    public static Trouble TroubleOf(NightSummary n, NightTargets? targets) =>
+        TroubleOf(n.Missed || n.OnAfterSunrise, targets is { Pass: false }, n.ChatterBursts, n.FalseTriggers, n.EarlyOffs,
+            targets is null || targets.Checks.Count == 0 ? 0 : targets.Checks.Min(c => c.RelativeMargin));
+
+    /// <summary>The trouble of one night from its counts.</summary>
+    /// <param name="lampWrongAllNight">The lamp never came on although it got dark, or still burned at sunrise.</param>
+    /// <param name="failedTarget">A design target was missed.</param>
+    /// <param name="chatterBursts">Chatter bursts.</param>
+    /// <param name="falseTriggers">Switch-ons not caused by dusk.</param>
+    /// <param name="earlyOffs">On-times cut short.</param>
+    /// <param name="worstMargin">Smallest relative target margin (0 without targets).</param>
+    public static Trouble TroubleOf(bool lampWrongAllNight, bool failedTarget, int chatterBursts, int falseTriggers, int earlyOffs, double worstMargin)
     {
         var kinds = new List<Grave>();
-        if (n.Missed || n.OnAfterSunrise) kinds.Add(Grave.LampWrongAllNight);
-        if (targets is { Pass: false }) kinds.Add(Grave.FailedTarget);
-        if (n.ChatterBursts > 0) kinds.Add(Grave.Chatter);
-        if (n.FalseTriggers > 0) kinds.Add(Grave.FalseTrigger);
-        if (n.EarlyOffs > 0) kinds.Add(Grave.EarlyOff);
-        double margin = targets is null || targets.Checks.Count == 0 ? 0 : targets.Checks.Min(c => c.RelativeMargin);
-        return new Trouble(kinds.Count == 0 ? Grave.None : kinds.Min(), kinds.Count, margin, n.ChatterBursts + n.FalseTriggers + n.EarlyOffs);
+        if (lampWrongAllNight) kinds.Add(Grave.LampWrongAllNight);
+        if (failedTarget) kinds.Add(Grave.FailedTarget);
+        if (chatterBursts > 0) kinds.Add(Grave.Chatter);
+        if (falseTriggers > 0) kinds.Add(Grave.FalseTrigger);
+        if (earlyOffs > 0) kinds.Add(Grave.EarlyOff);
+        return new Trouble(kinds.Count == 0 ? Grave.None : kinds.Min(), kinds.Count, worstMargin, chatterBursts + falseTriggers + earlyOffs);
     }
 }
