@@ -108,6 +108,8 @@ internal static class SimulateNight
         // Progress goes to standard error, so standard output carries only the report (redirect it to a file freely).
         var progress = new ProgressReporter(Terminal.For(error), enabled: !s.NoProgress && s.Format == "text");
         int nights = scenario.Nights;
+        // The plot font and renderer load on a spare core while the circuit is solved.
+        if (!s.NoPlots) PlotWarmUp.Start();
         NightRunResult result = progress.Run(p => NightRun.Run(request, new Progress(p, nights, stepping)));
 
         if (result.Simulation.Failure is { } failure)
@@ -137,20 +139,24 @@ internal static class SimulateNight
         OutputException.Guard(tracePath, () => CsvTraceWriter.Write(result.Traces, tracePath));
         written.Add(tracePath);
 
-        var figures = new List<HtmlFigure>();
+        IReadOnlyList<HtmlFigure> figures = [];
+        IReadOnlyList<DateOnly> plotted = [];
         string? plotWarning = null;
         if (!s.NoPlots)
         {
-            int k = 0;
-            foreach (PlotData data in result.Plots)
+            // A run of several nights opens with the overview of every night; a long run plots its interesting nights only.
+            plotted = PlottedNights.Select(report.Nights, report.TargetResults);
+            List<(PlotModel, string, string)> overview = report.Nights.Count > 1
+                ? [(NightsOverviewPlot.Build(report, plotted.ToHashSet()), NightsOverviewPlot.FileStem, $"Every night: when the lamp was on ({report.Nights.Count} nights)")]
+                : [];
+            PlotSetResult plots = PlotSetWriter.WriteAll(result.Plots, dir, (svg, write) => OutputException.Guard(svg, write), overview);
+            foreach (PlotFiles files in plots.Files)
             {
-                PlotModel model = NightPlotBuilder.Build(data);
-                PlotFiles files = OutputException.Guard(Path.Combine(dir, data.FileStem + ".svg"), () => PlotWriter.Write(model, dir, data.FileStem));
                 written.Add(files.SvgPath);
                 if (files.PngPath is not null) written.Add(files.PngPath);
-                plotWarning ??= files.Warning;
-                figures.Add(new HtmlFigure(data.Title, PlotWriter.ToInlineSvg(NightPlotBuilder.Build(data), $"fig{++k}-", includeTitle: false)));
             }
+            plotWarning = plots.Warnings.FirstOrDefault();
+            figures = plots.Figures;
         }
         string htmlPath = Path.Combine(dir, "report.html");
         OutputException.Guard(htmlPath, () => HtmlReportWriter.Write(report, figures, htmlPath));
@@ -168,6 +174,10 @@ internal static class SimulateNight
             TerminalReport.Render(report, console);
             console.WriteLine();
             console.MarkupLine($"[grey]wrote {written.Count} files to {Markup.Escape(set.Target)}: report.html, report.json, trace.csv and {written.Count - 3} plot files[/]");
+            if (plotted.Count > 0 && plotted.Count < report.Nights.Count)
+            {
+                console.MarkupLine($"[grey]plotted {plotted.Count} of {report.Nights.Count} nights, the most interesting ({string.Join(", ", plotted.Select(d => d.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)))}); {NightsOverviewPlot.FileStem}.png shows every night[/]");
+            }
         }
         if (plotWarning is not null) error.WriteLine("warning: " + plotWarning);
         return FailOn(report, s.FailOn, error);

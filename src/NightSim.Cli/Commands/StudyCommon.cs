@@ -89,7 +89,8 @@ internal static class StudyCommon
         string? sc = scenarioPath ?? SimulateNight.CompanionScenario(netlistPath);
         if (sc is null) throw new StudyFileException([$"{netlistPath}: error: no scenario. hint: give --scenario FILE or put {Path.GetFileNameWithoutExtension(netlistPath)}.scenario.json beside the netlist"]);
         LightScenario scenario = ScenarioLoader.LoadOrThrow(sc);
-        return new NightRunRequest { Netlist = loaded.Definition!, NetlistPath = netlistPath, Scenario = scenario, ScenarioPath = sc, Tool = Tool };
+        // A study keeps each run's outcome only: no night or zoom plot data is built for its runs.
+        return new NightRunRequest { Netlist = loaded.Definition!, NetlistPath = netlistPath, Scenario = scenario, ScenarioPath = sc, Tool = Tool, PlotData = false };
     }
 
     /// <summary>Creates the output folder; a file in its place, or a folder that cannot be made, is an output failure (exit 5).</summary>
@@ -139,11 +140,11 @@ internal static class StudyCommon
     /// <summary>Writes a plot as SVG and PNG, and returns its inline figure for the page.</summary>
     public static HtmlFigure Plot(PlotModel model, string dir, string stem, string caption, List<string> written, ref string? warning)
     {
-        PlotFiles files = PlotWriter.Write(model, dir, stem);
+        (PlotFiles files, HtmlFigure figure) = PlotWriter.WriteWithFigure(model, dir, stem, caption, stem + "-");
         written.Add(files.SvgPath);
         if (files.PngPath is not null) written.Add(files.PngPath);
         warning ??= files.Warning;
-        return new HtmlFigure(caption, PlotWriter.ToInlineSvg(model, stem + "-", includeTitle: false));
+        return figure;
     }
 
     /// <summary>Round-trips an item through its JSON form, so a study written at once holds exactly what a joined one does.</summary>

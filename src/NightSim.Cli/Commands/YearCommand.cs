@@ -47,7 +47,7 @@ internal static class YearCommand
                 (List<YearNight> done, bool complete) = StudyCommon.RunItems("year nights", shard.Indices(study.Total), study.Run, pr.GetValue(o.Workers), !pr.GetValue(o.NoProgress), error);
                 done = StudyCommon.Normalise(done, YearNight.Read);
                 if (!shard.IsWhole) return StudyCommon.WriteShard(shard, dir, header, done, complete, study.Total, "nights", output, error);
-                return OutputException.Guard(dir, () => Finish(header, request.Netlist, done, complete, dir, pr.GetValue(o.Format)!, output, error));
+                return OutputException.Guard(dir, () => Finish(header, request.Netlist, done, complete, dir, pr.GetValue(o.Format)!, output, error, request));
             }
             catch (UsageException u)
             {
@@ -58,6 +58,40 @@ internal static class YearCommand
         return command;
     }
 
+    /// <summary>
+    /// The night plots of the interesting dates (<see cref="PlottedNights"/>): each such date is run once more, with its
+    /// plot data, and its night plot, zooms and details are written with the date in their names
+    /// (<c>night-DATE</c>, <c>DATE-zoom-NN-…</c>, <c>DATE-detail-NN-…</c>). The run is the study's own, so the same
+    /// inputs give the same files whether the study ran at once or in shards.
+    /// </summary>
+    private static IReadOnlyList<DateOnly> PlotNights(StudyHeader header, List<YearNight> nights, NightRunRequest? request, string dir,
+        List<HtmlFigure> figures, List<string> written, ref string? warning)
+    {
+        if (nights.Count == 0) return [];
+        request ??= StudyCommon.Load(header.Netlist, header.Scenario, TextWriter.Null);
+        DateOnly Setting(string name) => DateOnly.ParseExact(header.Setting(name)!, "yyyy-MM-dd", CultureInfo.InvariantCulture);
+        var study = new YearStudy(request, Setting("from"), Setting("to"), int.Parse(header.Setting("step") ?? "1", CultureInfo.InvariantCulture));
+        IReadOnlyList<DateOnly> dates = YearStudy.PlottedDates(nights);
+        var runs = new NightRunResult[dates.Count];
+        Parallel.For(0, dates.Count, i => runs[i] = study.RunWithPlots(dates[i]));
+        var plots = new List<PlotData>();
+        for (int i = 0; i < dates.Count; i++)
+        {
+            string prefix = dates[i].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture) + "-";
+            plots.AddRange(runs[i].Plots.Select(p => p.FileStem.StartsWith("night-", StringComparison.Ordinal) ? p : p with { FileStem = prefix + p.FileStem }));
+        }
+        PlotSetResult set = PlotSetWriter.WriteAll(plots, dir, (svg, write) => OutputException.Guard(svg, write));
+        foreach (PlotFiles f in set.Files)
+        {
+            written.Add(f.SvgPath);
+            if (f.PngPath is not null) written.Add(f.PngPath);
+        }
+        warning ??= set.Warnings.FirstOrDefault();
+        // The page shows each night's plot; its zooms and details are in the folder.
+        figures.AddRange(set.Figures.Where((_, i) => plots[i].FileStem.StartsWith("night-", StringComparison.Ordinal)));
+        return dates;
+    }
+
     private static DateOnly? Date(string? text, string option)
     {
         if (text is null) return null;
@@ -65,7 +99,9 @@ internal static class YearCommand
             ? d : throw new UsageException($"{option}: '{text}' is not a date; write YYYY-MM-DD");
     }
 
-    public static int Finish(StudyHeader header, NetlistDefinition net, List<YearNight> nights, bool complete, string dir, string format, TextWriter output, TextWriter error)
+    /// <param name="request">The study's request; null (merge) to load the netlist and scenario the header names.</param>
+    public static int Finish(StudyHeader header, NetlistDefinition net, List<YearNight> nights, bool complete, string dir, string format, TextWriter output, TextWriter error,
+        NightRunRequest? request = null)
     {
         var report = new YearReport(header, nights, complete, NightSim.Supply.MainsExposure.Cautions(net));
         var written = new List<string>();
@@ -75,6 +111,7 @@ internal static class YearCommand
             StudyCommon.Plot(YearPlot.Build($"Switch-on and off through the year: {header.Netlist}", report.Lines()[0], nights), dir, "year", "Switch-on and switch-off against sunset and sunrise", written, ref warning),
             StudyCommon.Plot(YearPlot.Energy("Energy and pass rate per month", report.Months()), dir, "year-months", "Energy and target pass rate per month", written, ref warning),
         };
+        IReadOnlyList<DateOnly> plotted = PlotNights(header, nights, request, dir, figures, written, ref warning);
         string json = Path.Combine(dir, "year.json"), csv = Path.Combine(dir, "year.csv"), html = Path.Combine(dir, "year.html");
         AtomicFile.Write(json, st => st.Write(report.Json()));
         AtomicFile.WriteText(csv, report.Csv());
@@ -96,6 +133,10 @@ internal static class YearCommand
             console.Write(table);
             foreach (string line in report.Lines()) console.MarkupLine(Markup.Escape(line));
             console.MarkupLine($"[grey]wrote {written.Count} files to {Markup.Escape(dir)}: year.html, year.json, year.csv and plots[/]");
+            if (plotted.Count > 0)
+            {
+                console.MarkupLine($"[grey]night plots for {(plotted.Count == nights.Count ? "every date" : plotted.Count == 1 && nights.All(n => n.Outcome.Pass) ? "the first date, as an example (no date went wrong)" : $"the {plotted.Count} most interesting dates")}: {string.Join(", ", plotted.Select(d => d.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)))}[/]");
+            }
         }
         if (warning is not null) error.WriteLine("warning: " + warning);
         if (!complete)

@@ -281,7 +281,9 @@ public static class NightPlotBuilder
         foreach (PlotSeries s in data.Series)
         {
             if (s.Panel != panel) continue;
-            (int a, int b) = Window(s.Times, data.From, data.To);
+            // Only what the window shows: the points inside, one just outside each edge, at most four per pixel column.
+            (double[] ct, double[] cv) = SeriesClip.Clip(s.Times, s.Values, data.From, data.To, panel == PlotPanel.States ? SeriesShape.Steps : SeriesShape.Line);
+            (ct, cv) = SeriesDecimator.Decimate(ct, cv, data.From, data.To);
             string key = panel.ToString();
             if (panel == PlotPanel.States)
             {
@@ -297,8 +299,8 @@ public static class NightPlotBuilder
                     LegendKey = key,
                 };
                 double baseLine = lane++;
-                for (int i = a; i < b; i++)
-                    if (double.IsFinite(s.Values[i])) st.Points.Add(new DataPoint(s.Times[i] + shift, baseLine + LaneOn * Math.Clamp(s.Values[i], 0, 1)));
+                for (int i = 0; i < ct.Length; i++)
+                    if (double.IsFinite(cv[i])) st.Points.Add(new DataPoint(ct[i] + shift, baseLine + LaneOn * Math.Clamp(cv[i], 0, 1)));
                 model.Series.Add(st);
                 model.Annotations.Add(new TextAnnotation
                 {
@@ -333,20 +335,19 @@ public static class NightPlotBuilder
                 Color = color,
                 StrokeThickness = s.Dashed ? 1.2 : 1.8,
                 LineStyle = style,
-                Decimator = Decimator.Decimate,
                 XAxisKey = XKey,
                 YAxisKey = key,
                 LegendKey = key,
                 CanTrackerInterpolatePoints = false,
             };
             bool light = panel == PlotPanel.Light;
-            line.Points.Capacity = b - a;
-            for (int i = a; i < b; i++)
+            line.Points.Capacity = ct.Length;
+            for (int i = 0; i < ct.Length; i++)
             {
-                double v = s.Values[i];
+                double v = cv[i];
                 if (!double.IsFinite(v)) { line.Points.Add(DataPoint.Undefined); continue; }
                 if (light && v < LuxFloor) v = LuxFloor;
-                line.Points.Add(new DataPoint(s.Times[i] + shift, v));
+                line.Points.Add(new DataPoint(ct[i] + shift, v));
             }
             model.Series.Add(line);
         }
@@ -361,13 +362,12 @@ public static class NightPlotBuilder
 
     private static void AddMarkers(PlotModel model, PlotData data, List<PlotPanel> panels, double shift)
     {
-        int n = 0;
+        var labels = new List<MarkerLabel>();
         foreach (PlotMarker m in data.Markers)
         {
             if (m.Time < data.From || m.Time > data.To) continue;
-            for (int i = 0; i < panels.Count; i++)
+            foreach (PlotPanel p in panels)
             {
-                bool top = i == 0;
                 model.Annotations.Add(new LineAnnotation
                 {
                     Type = LineAnnotationType.Vertical,
@@ -375,24 +375,15 @@ public static class NightPlotBuilder
                     Color = m.Emphasis ? s_emphasis : s_marker,
                     StrokeThickness = m.Emphasis ? 1.6 : 1.1,
                     LineStyle = m.Emphasis ? LineStyle.Solid : LineStyle.Dash,
-                    Text = top ? m.Label : null,
-                    TextColor = m.Emphasis ? s_emphasis : s_marker,
-                    FontSize = 10.5,
-                    FontWeight = m.Emphasis ? FontWeights.Bold : FontWeights.Normal,
-                    TextOrientation = AnnotationTextOrientation.Vertical,
-                    // Labels sit after the line, or before it near the right edge so they are not cut off.
-                    TextHorizontalAlignment = HorizontalAlignment.Right,
-                    TextVerticalAlignment = (m.Time - data.From) / (data.To - data.From) > 0.9 ? VerticalAlignment.Bottom : VerticalAlignment.Top,
-                    // Alternate label ends so neighbouring markers (sunset, civil dusk) do not overprint.
-                    TextLinePosition = n % 2 == 0 ? 1 : 0.55,
-                    TextMargin = 3,
                     XAxisKey = XKey,
-                    YAxisKey = panels[i].ToString(),
+                    YAxisKey = p.ToString(),
                     Layer = AnnotationLayer.BelowSeries,
                 });
             }
-            n++;
+            labels.Add(new MarkerLabel(m.Time + shift, m.Label, m.Emphasis ? s_emphasis : s_marker, m.Emphasis));
         }
+        // The labels go where they cover no curve: placed when the plot is drawn, the top panel tried first.
+        if (labels.Count > 0) model.Annotations.Add(new MarkerLabels(labels, XKey, [.. panels.Select(p => p.ToString())]));
     }
 
     /// <summary>Index range [a, b) of the samples inside [from, to], widened by one sample each side.</summary>

@@ -60,16 +60,21 @@ public static class NightRun
         var detail = new ZoomCapture(zoomIndices, maxWindows: 6) { Before = 0.02, After = 0.06 };
         bool[] lastOn = new bool[loads.Count];
         double nextReport = 0;
+        bool capture = request.PlotData;
         solver.Accepted = s =>
         {
-            zoom.Add(s.Time, s.Solution);
-            detail.Add(s.Time, s.Solution);
+            if (capture)
+            {
+                zoom.Add(s.Time, s.Solution);
+                detail.Add(s.Time, s.Solution);
+            }
             for (int i = 0; i < lastOn.Length; i++)
             {
                 bool on = loads[i].LoadOn;
                 if (on != lastOn[i])
                 {
                     lastOn[i] = on;
+                    if (!capture) continue;
                     zoom.Mark(s.Time, on ? "load on" : "load off");
                     if (on) detail.Mark(s.Time, "load on");
                 }
@@ -89,7 +94,11 @@ public static class NightRun
         AnalysisResult analysis = NightAnalysis.Analyze(facts);
         NightReport report = BuildReport(request, profile, facts, analysis, sim);
         TraceTable table = NightTraces.Table(facts, profile, sim, nodes);
-        IReadOnlyList<PlotData> plots = NightTraces.Plots(request, facts, analysis, profile, sim, [(zoom, "zoom"), (detail, "detail")], nodes);
+        // A long run plots its interesting nights only (PlottedNights states the rule).
+        IReadOnlyList<PlotData> plots = request.PlotData
+            ? NightTraces.Plots(request, facts, analysis, profile, sim, [(zoom, "zoom"), (detail, "detail")], nodes,
+                PlottedNights.Select(report.Nights, report.TargetResults).ToHashSet())
+            : [];
         return new NightRunResult(sim, profile, facts, analysis, report, table, plots);
     }
 

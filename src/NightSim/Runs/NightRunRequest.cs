@@ -32,6 +32,10 @@ public sealed record NightRunRequest
     /// <summary>Tool name and version for the report.</summary>
     public string Tool { get; init; } = "nightsim";
 
+    /// <summary>Build the plot data (night plots, zooms and details, with the capture windows they need). Studies that
+    /// keep only each run's outcome turn it off.</summary>
+    public bool PlotData { get; init; } = true;
+
     /// <summary>Stops the run at its next step (Ctrl+C, SIGTERM); the result is then marked interrupted.</summary>
     public CancellationToken Cancellation { get; init; }
 }

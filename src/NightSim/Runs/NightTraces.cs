@@ -58,15 +58,20 @@ public static class NightTraces
     }
 
     public static IReadOnlyList<PlotData> Plots(NightRunRequest request, RunFacts facts, AnalysisResult analysis, LightProfile? profile,
-        SimulationResult sim, IReadOnlyList<(ZoomCapture Capture, string Prefix)> zooms, IReadOnlyList<string> nodes)
+        SimulationResult sim, IReadOnlyList<(ZoomCapture Capture, string Prefix)> zooms, IReadOnlyList<string> nodes,
+        IReadOnlySet<DateOnly>? plotted = null)
     {
         NodeRoles roles = NodeRoles.Of(request.Netlist);
         var plots = new List<PlotData>();
         IReadOnlyList<NightWindow> windows = facts.Nights.Count > 0
             ? facts.Nights
             : [new NightWindow(DateOnly.FromDateTime(facts.Origin.Date), 0, facts.Duration, null, null, null, null)];
+        // Only the chosen nights are drawn, and only the zooms of events in them.
+        bool Plotted(NightWindow n) => plotted is null || facts.Nights.Count == 0 || plotted.Contains(n.Date);
+        var skipped = windows.Where(n => !Plotted(n)).Select(n => (n.From, n.To)).ToList();
         foreach (NightWindow n in windows)
         {
+            if (!Plotted(n)) continue;
             double from = n.From, to = Math.Min(n.To, facts.Duration);
             if (to <= from) continue;
             var series = new List<PlotSeries>();
@@ -131,19 +136,19 @@ public static class NightTraces
 
         foreach ((ZoomCapture zoom, string prefix) in zooms)
         {
-            AddZooms(plots, request, facts, analysis, profile, roles, zoom, prefix, nodes);
+            AddZooms(plots, request, facts, analysis, profile, roles, zoom, prefix, nodes, skipped);
         }
         return plots;
     }
 
     private static void AddZooms(List<PlotData> plots, NightRunRequest request, RunFacts facts, AnalysisResult analysis,
-        LightProfile? profile, NodeRoles roles, ZoomCapture zoom, string prefix, IReadOnlyList<string> nodes)
+        LightProfile? profile, NodeRoles roles, ZoomCapture zoom, string prefix, IReadOnlyList<string> nodes, IReadOnlyList<(double From, double To)> skipped)
     {
         int k = 0;
         foreach (ZoomCapture.Window w in zoom.Windows)
         {
             k++;
-            if (w.Times.Count < 2) continue;
+            if (w.Times.Count < 2 || skipped.Any(s => w.EventTime >= s.From && w.EventTime < s.To)) continue;
             AttributedInterval? iv = analysis.Intervals.FirstOrDefault(i => Math.Abs(i.Start - w.EventTime) < 1e-6 || (i.End is double e && Math.Abs(e - w.EventTime) < 1e-6));
             bool isOn = iv is not null && Math.Abs(iv.Start - w.EventTime) < 1e-6;
             // Each zoom sized to its event: dusk, dawn and a timer running out take minutes; a headlight, lightning
@@ -261,8 +266,11 @@ public static class NightTraces
 
     private static PlotSeries LuxSeries(RunFacts facts, LightProfile profile, double[] times, double from, double to)
     {
-        // Sample at the trace times plus every known light edge in the window, so short events are drawn.
+        // Sample at the trace times, on an even grid of LuxSamples points (the light itself at about a pixel column's
+        // resolution, so the curve does not depend on how long the solver's steps were), and at every known light edge
+        // in the window, so short events are drawn.
         var t = new SortedSet<double>(times);
+        for (int k = 0; k <= LuxSamples; k++) t.Add(from + (to - from) * k / LuxSamples);
         double b = from;
         int guard = 0;
         while ((b = profile.NextBreakpoint(b)) <= to && guard++ < 20000) t.Add(b);
@@ -294,6 +302,9 @@ public static class NightTraces
         (double[] t, double[] v) = Thin(ts, vs, from, to);
         return new PlotSeries("lamp on", "", PlotPanel.States, t, v);
     }
+
+    /// <summary>Evenly spaced samples of the light drawn across a plot's window (about one per pixel column).</summary>
+    public const int LuxSamples = 1200;
 
     /// <summary>False-trigger markers per cause and night plot.</summary>
     public const int MaxMarkersPerCause = 4;

@@ -60,21 +60,36 @@ public sealed class YearStudy
             ?? sc.Weather.SkyFactor.ToString("0.##", CultureInfo.InvariantCulture);
     }
 
-    public YearNight Run(int index)
+    /// <summary>The one-night scenario of a date: the scenario moved to that evening, its sky and its seed.</summary>
+    private LightScenario NightOf(DateOnly date)
     {
-        DateOnly date = DateOf(index);
         LightScenario sc = _base.Scenario!;
-        string sky = SkyOf(date);
-        double factor = Weather.NamedSkyFactor(sky);
+        double factor = Weather.NamedSkyFactor(SkyOf(date));
         ulong seed = DeterministicRandom.ForStream(sc.Seed, "year#" + date.DayNumber.ToString(CultureInfo.InvariantCulture)).NextUInt64() >> 11;
-        LightScenario night = sc with
+        return sc with
         {
             Start = date,
             Nights = 1,
             Seed = seed,
             Weather = double.IsNaN(factor) ? sc.Weather : sc.Weather with { SkyFactor = factor },
         };
-        NightRunResult r = NightRun.Run(_base with { Scenario = night });
+    }
+
+    /// <summary>The night run of one date again, this time with its plot data (the same run as the study's, so the
+    /// same outcome).</summary>
+    public NightRunResult RunWithPlots(DateOnly date) => NightRun.Run(_base with { Scenario = NightOf(date), PlotData = true });
+
+    /// <summary>The dates whose nights get their own plots (the rule of <see cref="PlottedNights"/>).</summary>
+    public static IReadOnlyList<DateOnly> PlottedDates(IReadOnlyList<YearNight> nights) =>
+        PlottedNights.Select([.. nights.OrderBy(n => n.Date).Select(n => (n.Date, PlottedNights.TroubleOf(
+            n.Outcome.Missed || n.Outcome.NeverEnds || n.Outcome.Failure is not null, n.Outcome.TargetsFailed > 0,
+            n.Outcome.ChatterBursts, n.Outcome.FalseTriggers, n.Outcome.EarlyOffs, n.Outcome.WorstMargin ?? 0)))]);
+
+    public YearNight Run(int index)
+    {
+        DateOnly date = DateOf(index);
+        string sky = SkyOf(date);
+        NightRunResult r = NightRun.Run(_base with { Scenario = NightOf(date) });
         NightSummary? n = r.Report.Nights.Count > 0 ? r.Report.Nights[0] : null;
         return new YearNight(index, date, sky,
             n?.Sunset is DateTimeOffset ss ? ReportText.Iso(ss) : null,

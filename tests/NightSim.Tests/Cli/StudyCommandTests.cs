@@ -125,6 +125,38 @@ public sealed class StudyCommandTests
     }
 
     [Fact]
+    public void Year_Plots_Its_Interesting_Nights_And_Merge_Writes_The_Same_Plots()
+    {
+        string root = TempDir();
+        try
+        {
+            string net = Path.Combine(RepoPaths.Netlists, "garden-path.json");
+            string whole = Path.Combine(root, "whole"), s1 = Path.Combine(root, "s1"), s2 = Path.Combine(root, "s2"), merged = Path.Combine(root, "merged");
+            string[] dates = ["--from", "2026-11-18", "--to", "2026-11-25"]; // eight dates: more than a week, so a selection
+            var a = Run(["year", net, .. dates, "--out", whole, "--no-progress"]);
+            Assert.True(a.Exit == 0, a.Err);
+            Assert.True(Run(["year", net, .. dates, "--out", s1, "--no-progress", "--shard", "1/2"]).Exit == 0);
+            Assert.True(Run(["year", net, .. dates, "--out", s2, "--no-progress", "--shard", "2/2"]).Exit == 0);
+            Assert.Empty(Directory.GetFiles(s1, "night-*")); // a shard writes no plots
+            var m = Run("merge", s1, s2, "--out", merged);
+            Assert.True(m.Exit == 0, m.Err);
+            // The interesting nights by the rule of PlottedNights, each with its night plot; at most five of eight.
+            using var doc = System.Text.Json.JsonDocument.Parse(File.ReadAllBytes(Path.Combine(whole, "year.json")));
+            List<NightSim.Studies.YearNight> nights = [.. doc.RootElement.GetProperty("nights").EnumerateArray().Select(NightSim.Studies.YearNight.Read)];
+            IReadOnlyList<DateOnly> expected = NightSim.Studies.YearStudy.PlottedDates(nights);
+            string[] plotted = [.. expected.Select(d => $"night-{d:yyyy-MM-dd}.svg")];
+            Assert.InRange(plotted.Length, 1, NightSim.Runs.PlottedNights.MostInteresting);
+            Assert.Equal(plotted, Directory.GetFiles(whole, "night-*.svg").Select(Path.GetFileName).Order(StringComparer.Ordinal));
+            Assert.Contains(plotted[0]["night-".Length..^".svg".Length], a.Out, StringComparison.Ordinal); // the terminal names the plotted dates
+            AssertSameFiles(whole, merged, ["year.json", "year.html", .. plotted]);
+        }
+        finally
+        {
+            if (Directory.Exists(root)) Directory.Delete(root, recursive: true);
+        }
+    }
+
+    [Fact]
     public void Bad_Shard_Is_A_Usage_Mistake()
     {
         var r = Run("spread", Path.Combine(RepoPaths.Netlists, "garden-path.json"), "--shard", "3/2", "--out", TempDir());

@@ -88,9 +88,13 @@ public sealed class NightPlotBuilderTests
         PlotModel m = NightPlotBuilder.Build(data);
         List<LineAnnotation> lines = m.Annotations.OfType<LineAnnotation>().ToList();
         Assert.Equal(data.Markers.Count * 3, lines.Count);
-        Assert.Equal(data.Markers.Select(k => k.Label), lines.Where(l => l.Text is not null).Select(l => l.Text));
-        LineAnnotation headlight = lines.Single(l => l.Text == "headlight 23:41");
-        Assert.NotEqual(lines.Single(l => l.Text == "sunset 16:31").Color, headlight.Color); // emphasis drawn differently
+        // The lines carry no text; one label per marker, placed clear of the curves when the plot is drawn.
+        Assert.All(lines, l => Assert.Null(l.Text));
+        MarkerLabels labels = Assert.Single(m.Annotations.OfType<MarkerLabels>());
+        Assert.Equal(data.Markers.Select(k => k.Label), labels.Labels.Select(l => l.Text));
+        MarkerLabel headlight = labels.Labels.Single(l => l.Text == "headlight 23:41");
+        Assert.NotEqual(labels.Labels.Single(l => l.Text == "sunset 16:31").Color, headlight.Color); // emphasis drawn differently
+        Assert.True(headlight.Bold);
     }
 
     [Fact]
