@@ -12,5 +12,9 @@ public static class AnalyzerCatalog
         new LeakageLimitAnalyzer(),
         new StageAnalyzer(),
         new DischargeCurrentAnalyzer(),
+        new SupplyRegulationAnalyzer(),
+        new SupplyPullInAnalyzer(),
+        new SupplyDropOutAnalyzer(),
+        new SupplyRippleAnalyzer(),
     ];
 }

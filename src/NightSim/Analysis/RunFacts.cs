@@ -158,6 +158,10 @@ public sealed record RunFacts
     /// <summary>The relays (coil thresholds and coil voltage over time).</summary>
     public IReadOnlyList<RelayFacts> Relays { get; init; } = [];
 
+    /// <summary>The mains-fed supply (rail, Zener regulation per load state, relay drives, ripple at the trigger), or
+    /// null when the circuit runs from an ideal rail.</summary>
+    public SupplyFacts? Supply { get; init; }
+
     /// <summary>The light sensor the circuit switches on (the first one), or null.</summary>
     public SensorFacts? Sensor { get; init; }
 
