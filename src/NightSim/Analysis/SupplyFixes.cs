@@ -40,7 +40,8 @@ public static class SupplyFixes
                 ? $"a relay whose coil draws less: the supply spares about {F(spare - keep, "A")} for it at {F(vz, "V")}, a coil of {F(vz / (spare - keep), "Ω")} or more instead of {F(coilR, "Ω")}"
                 : $"a relay whose coil draws far less than the {F(vz / coilR, "A")} of this {F(coilR, "Ω")} coil");
         }
-        if (s.ReservoirId is not null) fixes.Add($"a larger smoothing capacitor than {s.ReservoirId}'s {F(s.ReservoirCapacitance, "F")} to carry the pull-in surge");
+        if (s.ReservoirId is not null)
+            fixes.Add($"a larger smoothing capacitor than {s.ReservoirId}'s {F(s.ReservoirCapacitance, "F")} {(relay is null ? "to fill the ripple troughs" : "to carry the pull-in surge")}");
         return fixes.Count == 0 ? "Give the supply more current for the relay coil." : "Fit " + string.Join("; or ", fixes) + ".";
     }
 }

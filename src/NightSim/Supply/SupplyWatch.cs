@@ -23,6 +23,9 @@ public sealed class SupplyWatch
     /// <summary>Time after a relay drive starts or ends before standby cycles count for the ripple, s.</summary>
     public const double Quiet = 1.0;
 
+    /// <summary>Without a rail Zener, standby cycles count from this run time on (the supply has come up), s.</summary>
+    public const double PowerUp = 5.0;
+
     private readonly SupplySection _section;
     private readonly int _plus, _minus, _line, _coil, _trigger, _timerGround;
     private readonly ITerminalCurrent? _zener;
@@ -185,7 +188,8 @@ public sealed class SupplyWatch
             _cRailMin = _cRailMax = rail;
             _cMarginMin = double.PositiveInfinity;
             _cMarginMax = double.NegativeInfinity;
-            _cStandby = !_driving && t - _lastChange >= Quiet;
+            // Standby cycles count once the supply has come up: its Zener regulating, or after the power-up window.
+            _cStandby = !_driving && t - _lastChange >= Quiet && (_zener is null ? t >= PowerUp : _established);
         }
         else
         {
