@@ -18,6 +18,7 @@ internal static class Program
         root.Subcommands.Add(CheckCommand.Create());
         root.Subcommands.Add(SimulateCommand.Create());
         root.Subcommands.Add(SkyCommand.Create());
+        root.Subcommands.Add(SupplyCommand.Create());
         root.Subcommands.Add(SweepCommand.Create());
         root.Subcommands.Add(SpreadCommand.Create());
         root.Subcommands.Add(YearCommand.Create());

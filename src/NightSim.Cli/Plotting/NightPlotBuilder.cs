@@ -94,16 +94,20 @@ public static class NightPlotBuilder
         };
 
         string zone = data.TimeZone is null ? "UTC" + originClock.ToString("zzz", s_inv) : data.TimeZone.Id;
+        if (data.RunTimeAxis) shift = 0;
+        string seconds = step >= 1 ? "0" : step >= 0.1 ? "0.0" : step >= 0.01 ? "0.00" : "0.000";
         var x = new LinearAxis
         {
             Key = XKey,
             Position = AxisPosition.Bottom,
-            Title = "local clock time (" + zone + ")",
+            Title = data.RunTimeAxis ? "time since power-up (s)" : "local clock time (" + zone + ")",
             Minimum = data.From + shift,
             Maximum = data.To + shift,
             MajorStep = step,
             MinorStep = step / (step is 15 or 900 or 10800 ? 3 : step is 2 or 120 or 7200 or 0.2 or 0.02 or 0.002 or 20 ? 4 : 5),
-            LabelFormatter = v => ClockTime.At(data.Origin, data.TimeZone, v - shift).ToString(format, s_inv),
+            LabelFormatter = data.RunTimeAxis
+                ? v => v.ToString(seconds, s_inv)
+                : v => ClockTime.At(data.Origin, data.TimeZone, v - shift).ToString(format, s_inv),
             IsZoomEnabled = false,
             IsPanEnabled = false,
         };

@@ -13,5 +13,9 @@ public static class AnalyzerCatalog
         new StageAnalyzer(),
         new DischargeCurrentAnalyzer(),
         new ContactAnalyzer(),
+        new SupplyRegulationAnalyzer(),
+        new SupplyPullInAnalyzer(),
+        new SupplyDropOutAnalyzer(),
+        new SupplyRippleAnalyzer(),
     ];
 }

@@ -85,6 +85,16 @@ public static class LoadTimeline
             return (LoadCause.PowerUp, "the circuit powered up with its capacitors empty, which fires the one-shot", null);
         }
 
+        // The relay pulled in again after the supply had dropped it out, its coil driven all along: the supply's doing.
+        if (facts.Supply is { } supply && previousEnd is double dropped && facts.LoadTransitions.Count > 0)
+        {
+            string relay = facts.LoadTransitions[0].PartId;
+            if (supply.AttemptAt(relay, t) is { } a && a.Start <= dropped && DroppedBefore(facts, supply, relay, dropped))
+            {
+                return (LoadCause.Supply, $"the rail recovered after relay {relay} dropped out under supply sag at {Wording.Clock(facts.Clock(dropped))}, and its still-driven coil pulled in again", null);
+            }
+        }
+
         // The most recent darkening event whose window (plus the sensor's lag) contains the switch-on.
         EventFact? best = null;
         foreach (EventFact e in facts.Events)
@@ -116,6 +126,25 @@ public static class LoadTimeline
         return (LoadCause.Unexplained, "no light or noise event and no dusk edge explains this switch-on", null);
     }
 
+    /// <summary>True when <paramref name="relay"/> released under supply sag within the second before the load went off
+    /// at <paramref name="off"/> (the contacts open after the release travel).</summary>
+    private static bool DroppedBefore(RunFacts facts, SupplyFacts supply, string relay, double off)
+    {
+        IReadOnlyList<DiscreteEvent> events = facts.DeviceEvents;
+        int lo = 0, hi = events.Count;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (events[mid].Time < off - 1.0) lo = mid + 1; else hi = mid;
+        }
+        for (int i = lo; i < events.Count && events[i].Time <= off + 1e-6; i++)
+        {
+            DiscreteEvent e = events[i];
+            if (e.PartId == relay && e.Kind == DeviceEventKind.CoilReleased && supply.DroppedOutUnderSag(relay, e.Time, out _)) return true;
+        }
+        return false;
+    }
+
     private static (string, bool) EndedBy(RunFacts facts, double? end, HashSet<string> loadParts)
     {
         if (end is null) return ("still on at the end of the run", false);
@@ -134,7 +163,21 @@ public static class LoadTimeline
         {
             if (events[i].Kind == DeviceEventKind.TimerOutputLow && !loadParts.Contains(events[i].PartId)) outputLow = i;
         }
-        if (outputLow < 0) return ("switched off (the relay dropped out without a timer change: supply sag?)", false);
+        if (outputLow < 0)
+        {
+            // A relay that released while its coil was still driven, with the rail sagged: the supply switched it off.
+            if (facts.Supply is { } supply)
+            {
+                DiscreteEvent? release = null;
+                for (int i = lo; i < events.Count && events[i].Time <= end.Value + 1e-6; i++)
+                {
+                    if (events[i].Kind == DeviceEventKind.CoilReleased && loadParts.Contains(events[i].PartId)) release = events[i];
+                }
+                if (release is not null && supply.DroppedOutUnderSag(release.PartId, release.Time, out double rail))
+                    return ($"the relay dropped out under supply sag: the rail fell to {rail:0.##} V while the coil was still driven", false);
+            }
+            return ("switched off (the relay dropped out without a timer change: supply sag?)", false);
+        }
         string timer = events[outputLow].PartId;
         for (int i = outputLow; i >= 0; i--)
         {

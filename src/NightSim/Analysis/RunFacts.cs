@@ -161,6 +161,10 @@ public sealed record RunFacts
     /// <summary>The relays that switch a named load: their contacts against the load.</summary>
     public IReadOnlyList<ContactFacts> Contacts { get; init; } = [];
 
+    /// <summary>The mains-fed supply (rail, Zener regulation per load state, relay drives, ripple at the trigger), or
+    /// null when the circuit runs from an ideal rail.</summary>
+    public SupplyFacts? Supply { get; init; }
+
     /// <summary>The light sensor the circuit switches on (the first one), or null.</summary>
     public SensorFacts? Sensor { get; init; }
 

@@ -5,8 +5,9 @@ namespace NightSim.Analysis;
 /// <summary>
 /// The stages between the trigger and the contacts, from the devices' typed events: a trigger held low longer than
 /// the timing period (the output then follows the trigger, not the timer), and a timer output that went high while
-/// the relay coil stayed below its pull-in voltage (the contacts never closed). Each finding names the part and its
-/// role, with the numbers.
+/// the relay coil stayed below its pull-in voltage (the contacts never closed) — unless a mains-fed supply sagged
+/// under the coil, which <see cref="SupplyPullInAnalyzer"/> reports. Each finding names the part and its role, with
+/// the numbers.
 /// </summary>
 public sealed class StageAnalyzer : IResultAnalyzer
 {
@@ -73,6 +74,8 @@ public sealed class StageAnalyzer : IResultAnalyzer
                 if (pulled) continue;
                 double peak = relay.CoilPeak(start, end);
                 if (double.IsNaN(peak) || Math.Abs(peak) >= relay.PullIn) continue;
+                // A supply that sagged under the coil is the fault there, not the drive (SupplyPullInAnalyzer says so).
+                if (facts.Supply is { } supply && supply.Attempts.Any(a => a.Relay == relay.PartId && a.Start <= end && a.End >= start && supply.ExplainsNoPullIn(a, relay.PullIn))) continue;
                 failed.Add((timer, start, end, peak));
             }
             foreach ((string timer, double start, double end, double peak) in failed.Take(Listed))

@@ -28,8 +28,9 @@ public sealed class Capacitor : Device, Roles.IDcElement
     /// <param name="leakageResistance">Parallel leakage resistance in ohms (+∞ = none).</param>
     /// <param name="leakageCurrent">Constant leakage current in amperes (0 = none), modelled as I·tanh(v/0.05 V).</param>
     /// <param name="initialVoltage">Voltage across the capacitor at power-up in volts, or null for 0 V / solver default.</param>
+    /// <param name="ratedVoltage">Rated voltage in volts, or null when not stated (for the supply budget).</param>
     public Capacitor(string name, string partId, string nodeP, string nodeN, double capacitance, double esr = 0,
-        double leakageResistance = double.PositiveInfinity, double leakageCurrent = 0, double? initialVoltage = null)
+        double leakageResistance = double.PositiveInfinity, double leakageCurrent = 0, double? initialVoltage = null, double? ratedVoltage = null)
         : base(name, partId, [nodeP, nodeN])
     {
         if (!(capacitance > 0)) throw new ArgumentOutOfRangeException(nameof(capacitance), capacitance, "capacitance must be > 0 F");
@@ -41,6 +42,7 @@ public sealed class Capacitor : Device, Roles.IDcElement
         LeakageResistance = leakageResistance;
         LeakageCurrent = leakageCurrent;
         InitialVoltage = initialVoltage;
+        Role = new Roles.CapacitorRole(partId, nodeP, nodeN, capacitance) { RatedVoltage = ratedVoltage, LeakageResistance = leakageResistance };
     }
 
     /// <summary>Netlist kind "capacitor": nodes [p, n], value in farads, optional esr, leakage and initial voltage.</summary>
@@ -60,14 +62,14 @@ public sealed class Capacitor : Device, Roles.IDcElement
             ParameterSpec.Number("tolerance", "", "Relative tolerance below nominal (and above, unless toleranceAbove is given), e.g. \"20%\" or 0.2; used by `nightsim spread`. Default by construction: electrolytic 20 %, film 10 %, ceramic 10 %, not stated 20 %.") with { Min = 0, Max = 0.99 },
             ParameterSpec.Number("toleranceAbove", "", "Relative tolerance above nominal when it differs from below, e.g. 0.8 for an electrolytic of −20/+80 %.") with { Min = 0, Max = 4 },
             ParameterSpec.Word("construction", "Dielectric: an electrolytic without a stated leakage leaks a typical 2 % of its catalogue limit (IEC 60384-4: 0.01·C·V or 3 µA, whichever is larger); not stated = ideal dielectric", "electrolytic", "film", "ceramic"),
-            ParameterSpec.Number("ratedVoltage", "V", "Rated voltage (needed for an electrolytic: its leakage limit depends on it).") with { Min = 0.1, Max = 1e5 },
+            ParameterSpec.Number("ratedVoltage", "V", "Rated voltage (needed for an electrolytic: its leakage limit depends on it). `nightsim supply` compares the peak voltage across the part against it; for a capacitor in series with the mains (a dropper, X2 class) state its AC RMS rating, e.g. \"275V\", and the RMS voltage across it is compared.") with { Min = 0.1, Max = 1e5 },
         ],
         Check = CheckDefinition,
         Create = def =>
         [
             new Capacitor(def.Id, def.Id, def.Node("p"), def.Node("n"), def.Parameters.Number("value"),
                 def.Parameters.Number("esr", 0), def.Parameters.Number("leakageResistance", double.PositiveInfinity),
-                EffectiveLeakageCurrent(def), def.Parameters.OptionalNumber("initialVoltage")) { CatalogueLeakageLimit = LeakageLimit(def) },
+                EffectiveLeakageCurrent(def), def.Parameters.OptionalNumber("initialVoltage"), def.Parameters.OptionalNumber("ratedVoltage")) { CatalogueLeakageLimit = LeakageLimit(def) },
         ],
         ConductsDc = false,
     };

@@ -9,7 +9,7 @@ namespace NightSim.Devices;
 /// <remarks>Equations from Shockley (Bell Syst. Tech. J. 28, 1949) and the textbook junction model (Sedra &amp; Smith,
 /// Microelectronic Circuits). With a series
 /// resistance the device reserves an internal node "&lt;name&gt;.j" between the resistance and the junction.</remarks>
-public sealed class Diode : Device
+public sealed class Diode : Device, Roles.ITerminalCurrent
 {
     private readonly double _vt;
     private readonly double _vte;
@@ -59,6 +59,7 @@ public sealed class Diode : Device
         _vteBreakdown = breakdownEmission * _vt;
         _vCritBreakdown = Junction.CriticalVoltage(_vteBreakdown, breakdownCurrent);
         _breakdownOffset = double.IsPositiveInfinity(breakdownVoltage) ? 0 : Math.Exp(-breakdownVoltage / _vteBreakdown);
+        Role = new Roles.JunctionRole(partId, anode, cathode, breakdownVoltage) { TestCurrent = breakdownCurrent };
     }
 
     /// <summary>Netlist kind "diode": nodes [anode, cathode].</summary>
@@ -120,6 +121,10 @@ public sealed class Diode : Device
     }
 
     public override void PowerUp() => _vOld = 0;
+
+    /// <summary>Junction current anode → cathode at the solution, A (the Shockley and breakdown law at the junction's
+    /// own voltage; charge currents and gmin left out).</summary>
+    public double TerminalCurrent(ReadOnlySpan<double> x) => Current((_j >= 0 ? x[_j] : 0.0) - (_k >= 0 ? x[_k] : 0.0), out _);
 
     /// <summary>Junction current (A) and its derivative (S) at junction voltage v (V), without gmin.</summary>
     public double Current(double v, out double conductance)

@@ -15,6 +15,8 @@ public sealed class VoltageSource : Device
     {
         Waveform = waveform;
         if (waveform.Shape == WaveformShape.Dc && Netlist.Ground.Is(nodeN)) Role = new Roles.FixedSupplyRole(partId, nodeP, waveform.Value(0.0));
+        else if (waveform.Shape == WaveformShape.Sine && waveform.SineFrequency > 0)
+            Role = new Roles.SineSourceRole(partId, nodeP, nodeN, waveform.SineAmplitude, waveform.SineFrequency, name + ".i") { Offset = waveform.SineOffset, Start = waveform.SineStart };
     }
 
     /// <summary>Netlist kind "voltage-source": nodes [p, n] (p is +), one of constant, pulse, sine, points in volts.</summary>

@@ -158,6 +158,19 @@ public sealed class Waveform
     /// <summary>Frequency of a sine, hertz; 0 for every other shape.</summary>
     public double SineFrequency => Shape == WaveformShape.Sine ? _values[2] : 0.0;
 
+    /// <summary>Amplitude (peak deviation from the offset) of a sine, in the waveform's unit; 0 for every other shape.</summary>
+    public double SineAmplitude => Shape == WaveformShape.Sine ? _values[1] : 0.0;
+
+    /// <summary>Offset (mean) of a sine, in the waveform's unit; 0 for every other shape.</summary>
+    public double SineOffset => Shape == WaveformShape.Sine ? _values[0] : 0.0;
+
+    /// <summary>This sine with another <paramref name="amplitude"/> and <paramref name="frequency"/> (offset, start and
+    /// phase kept): the mains of another country.</summary>
+    /// <exception cref="InvalidOperationException">The waveform is not a sine.</exception>
+    public Waveform WithSine(double amplitude, double frequency) => Shape == WaveformShape.Sine
+        ? Sine(_values[0], amplitude, frequency, _values[3], _values[4] * 180.0 / Math.PI)
+        : throw new InvalidOperationException("only a sine has an amplitude and a frequency");
+
     /// <summary>Start time of a sine (its phase origin), seconds; 0 for every other shape.</summary>
     public double SineStart => Shape == WaveformShape.Sine ? _values[3] : 0.0;
 

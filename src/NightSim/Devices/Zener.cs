@@ -25,20 +25,26 @@ public static class Zener
             ParameterSpec.Number("emission", "", "Forward emission coefficient.") with { Default = 1.0, Min = 0.5, Max = 4 },
             ParameterSpec.Number("seriesResistance", "Ω", "Series resistance.") with { Default = 0, Min = 0, Max = 1e3 },
             ParameterSpec.Number("junctionCapacitance", "F", "Zero-bias junction capacitance.") with { Default = 0, Min = 0, Max = 1e-6 },
+            ParameterSpec.Number("powerRating", "W", "Rated dissipation, e.g. \"1.3W\": `nightsim supply` compares the dissipation against it (absent = not judged).") with { Min = 1e-3, Max = 1e3 },
         ],
         Create = def => [Create(def.Id, def.Id, def.Node("anode"), def.Node("cathode"), def.Parameters.Number("vz"),
             def.Parameters.Number("izt", 5e-3), def.Parameters.Number("zzt", 10), def.Parameters.Number("saturationCurrent", 1e-14),
-            def.Parameters.Number("emission", 1.0), def.Parameters.Number("seriesResistance", 0), def.Parameters.Number("junctionCapacitance", 0))],
+            def.Parameters.Number("emission", 1.0), def.Parameters.Number("seriesResistance", 0), def.Parameters.Number("junctionCapacitance", 0),
+            powerRating: def.Parameters.OptionalNumber("powerRating"))],
         ConductsDc = true,
     };
 
-    /// <summary>Builds the diode for a Zener with V_Z (V) at I_ZT (A) and dynamic resistance Z_ZT (Ω).</summary>
+    /// <summary>Builds the diode for a Zener with V_Z (V) at I_ZT (A) and dynamic resistance Z_ZT (Ω); its role states
+    /// V_Z, I_ZT and the rated dissipation (W, null when not stated).</summary>
     public static Diode Create(string name, string partId, string anode, string cathode, double vz, double izt = 5e-3, double zzt = 10,
         double saturationCurrent = 1e-14, double emission = 1.0, double seriesResistance = 0, double junctionCapacitance = 0,
-        double temperature = 300.15)
+        double temperature = 300.15, double? powerRating = null)
     {
         double nbv = zzt * izt / Junction.ThermalVoltage(temperature);
         return new Diode(name, partId, anode, cathode, saturationCurrent, emission, seriesResistance, junctionCapacitance,
-            breakdownVoltage: vz, breakdownCurrent: izt, breakdownEmission: nbv, temperature: temperature);
+            breakdownVoltage: vz, breakdownCurrent: izt, breakdownEmission: nbv, temperature: temperature)
+        {
+            Role = new Roles.JunctionRole(partId, anode, cathode, vz) { TestCurrent = izt, PowerRating = powerRating },
+        };
     }
 }

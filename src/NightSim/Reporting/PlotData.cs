@@ -45,6 +45,10 @@ public sealed record PlotData
     public IReadOnlyList<PlotSeries> Series { get; init; } = [];
     public IReadOnlyList<PlotMarker> Markers { get; init; } = [];
 
+    /// <summary>True: the time axis shows seconds of run time ("1.25 s") instead of the clock (a plain transient, a
+    /// supply run from power-up).</summary>
+    public bool RunTimeAxis { get; init; }
+
     /// <summary>File-name stem without extension, e.g. "night-2026-11-20" or "zoom-01-headlight".</summary>
     public required string FileStem { get; init; }
 }

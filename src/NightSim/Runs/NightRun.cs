@@ -60,9 +60,12 @@ public static class NightRun
         var detail = new ZoomCapture(zoomIndices, maxWindows: 6) { Before = 0.02, After = 0.06 };
         bool[] lastOn = new bool[loads.Count];
         double nextReport = 0;
+        // A mains-fed supply is watched at every accepted point (the rail Zener's current, the relay drives, the ripple).
+        Supply.SupplyWatch? supplyWatch = Supply.SupplyWatch.Create(circuit);
         bool capture = request.PlotData;
         solver.Accepted = s =>
         {
+            supplyWatch?.Observe(s.Time, s.Solution);
             if (capture)
             {
                 zoom.Add(s.Time, s.Solution);
@@ -90,7 +93,7 @@ public static class NightRun
 
         // Findings and report text are interpolated by many analysers: build them under the invariant culture.
         using InvariantCultureScope invariant = InvariantCultureScope.Enter();
-        RunFacts facts = RunFactsBuilder.Build(request, profile, devices, sim, stop);
+        RunFacts facts = RunFactsBuilder.Build(request, profile, devices, sim, stop, supplyWatch);
         AnalysisResult analysis = NightAnalysis.Analyze(facts);
         NightReport report = BuildReport(request, profile, facts, analysis, sim);
         TraceTable table = NightTraces.Table(facts, profile, sim, nodes);

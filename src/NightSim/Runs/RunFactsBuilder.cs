@@ -15,7 +15,9 @@ public static class RunFactsBuilder
     /// <summary>Clock origin of a plain transient (no scenario): run time is shown as time of day from midnight UTC.</summary>
     public static readonly DateTimeOffset PlainOrigin = new(2000, 1, 1, 0, 0, 0, TimeSpan.Zero);
 
-    public static RunFacts Build(NightRunRequest request, LightProfile? profile, IReadOnlyList<Device> devices, SimulationResult sim, double stop)
+    /// <param name="supply">The mains-fed supply watched through the run, or null (an ideal rail).</param>
+    public static RunFacts Build(NightRunRequest request, LightProfile? profile, IReadOnlyList<Device> devices, SimulationResult sim, double stop,
+        Supply.SupplyWatch? supply = null)
     {
         // The light sensor the circuit switches on: the first one (its channel, not always "sensor").
         LightSensorRole? sensor = devices.Select(d => d.Role).OfType<LightSensorRole>().FirstOrDefault();
@@ -65,6 +67,7 @@ public static class RunFactsBuilder
             LampCouplingLux = profile?.LampCouplings.Sum(c => c.Lux) ?? 0,
             AttributionLag = LagAt(0),
             AttributionLagAt = LagAt,
+            Supply = supply?.Facts(supply.RailFrom(sim)),
         };
     }
 
