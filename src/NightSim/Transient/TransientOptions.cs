@@ -46,11 +46,16 @@ public sealed record TransientOptions
     /// them; this bound keeps them followed through dusk and dawn.</summary>
     public double LightChange { get; init; } = 0.1;
 
-    /// <summary>Largest growth of h per step right after a restart (an event or an ideal edge), while the error estimate
-    /// allows it. The default equals <see cref="MaxGrowth"/> (no faster regrowth): larger values (3 to 100) cut the steps
-    /// after each event by half or more, but in month-long runs of the garden-path demo a relay pull-in late in the run
-    /// then failed Newton at the smallest step; until that is understood the faster regrowth is opt-in.</summary>
-    public double RestartGrowth { get; init; } = 2.0;
+    /// <summary>Largest growth of h per step while h is not yet limited by the error estimate: after a restart (an event,
+    /// an ideal edge, the start) and after landing on a breakpoint, h was set by the event or the breakpoint, and the
+    /// error estimate of each step alone chooses the next, up to this factor, until it holds h below
+    /// <see cref="MaxGrowth"/>. So a step after an event starts at <see cref="RestartStep"/> and reaches the length the
+    /// error allows in a few steps instead of doubling up from it.</summary>
+    public double RestartGrowth { get; init; } = 1e4;
+
+    /// <summary>Newton iterations per stage in the damped retries after a failed step (each moves a node by at most
+    /// <see cref="NewtonVoltageStepLimit"/>, so a 12 V swing needs a dozen of them).</summary>
+    public int DampedNewtonIterations { get; init; } = 25;
 
     /// <summary>Smallest step, seconds (the solver also never goes below 16 ulp of the current time).</summary>
     public double MinStep { get; init; } = 1e-13;
