@@ -81,6 +81,10 @@ public sealed class TraceRecorder
         RecordEnvelope(time, x);
     }
 
+    /// <summary>Add a point to the plots' envelope only, not to the rows (the accepted points of a skipped oscillation
+    /// cycle, moved to where the cycle would lie). Times non-decreasing, as for <see cref="Record"/>.</summary>
+    public void RecordEnvelopeOnly(double time, ReadOnlySpan<double> x) => RecordEnvelope(time, x);
+
     private void RecordRow(double time, ReadOnlySpan<double> x, bool keep)
     {
         if (keep || _rows == 0 || time - _lastRowTime >= _width)

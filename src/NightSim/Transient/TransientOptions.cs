@@ -116,6 +116,18 @@ public sealed record TransientOptions
     /// <summary>Full detail kept after power-up, every event and every breakpoint before the next jump, seconds.</summary>
     public double EnvelopeDetailWindow { get; init; } = 1.0;
 
+    /// <summary>Oscillation skipping: once three cycles of a switching oscillation (a relay chattering at dusk) were
+    /// alike, jump whole cycles forward along their measured per-cycle change, writing their events (docs/numerics.md
+    /// §10). False: every cycle in full detail.</summary>
+    public bool OscillationSkipping { get; init; } = true;
+
+    /// <summary>Oscillation tolerance: the time error the period's curvature may add over a jump, as a fraction of the
+    /// jump's span, and the curvature error of each state's extrapolation, as a fraction of its scale.</summary>
+    public double OscillationTolerance { get; init; } = 1e-2;
+
+    /// <summary>Most cycles skipped in one jump.</summary>
+    public double OscillationMaxCycles { get; init; } = 10_000;
+
     /// <summary>How the run starts.</summary>
     public StartMode Start { get; init; } = StartMode.PowerUp;
 

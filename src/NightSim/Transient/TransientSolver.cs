@@ -235,6 +235,8 @@ public sealed partial class TransientSolver
         SetTolerances();
         ExcludeFloorOnlyNodesFromNorm();
         SetUpEnvelope();
+        SetUpInternalStates();
+        SetUpOscillationSkipping();
         if (_options.Start == StartMode.PowerUp) _needRestart = !AlgebraicRowsSatisfied();
         RecordPoint(keepRow: true);
         EvaluateEvents(_x, 0.0, _gNew, _gOld);
@@ -290,6 +292,8 @@ public sealed partial class TransientSolver
             double bp = NextBreakpoint(t);
             double h = Math.Min(_h, _maxStep);
             if (_light is not null && _options.FixedStep is null) h = Math.Min(h, _light.StepLimit(t, _options.LightChange));
+            if (_internal.Length > 0 && _options.FixedStep is null) h = Math.Min(h, InternalStepLimit());
+            if (_eventRate.Length > 0 && _options.FixedStep is null) h = Math.Min(h, EventApproachLimit());
             if (_options.FixedStep is null) h = Math.Max(h, hMin);
             double dist = bp - t;
             bool landing = false;
@@ -405,6 +409,7 @@ public sealed partial class TransientSolver
             StepEnd end = StepEnd.Smooth;
             if (fired)
             {
+                OscillationAtEvents(); // may move time and state on by whole cycles of an oscillation
                 if (!FireEvents()) return false;
                 end = StepEnd.EventsFired;
             }
@@ -508,9 +513,11 @@ public sealed partial class TransientSolver
         if (_eventSource.Length > 0)
         {
             EvaluateEvents(_x, tNow, _gNew, _gOld);
+            NoteEventRates(h, restart);
             Array.Copy(_gNew, _gOld, _gOld.Length);
         }
         EnvelopeObserve(!double.IsNaN(landAt));
+        OscillationObserve();
         Accepted?.Invoke(this);
     }
 

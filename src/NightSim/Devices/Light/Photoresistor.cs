@@ -20,7 +20,7 @@ namespace NightSim.Devices.Light;
 /// the step's two ends (trapezoid). Load evaluates it at the iterate's time (consistent inside a step); Accept commits
 /// it. Before the first accepted point the cell is in steady state with its light.
 /// </remarks>
-public sealed class Photoresistor : Device, ILightSensor
+public sealed class Photoresistor : Device, ILightSensor, IInternalState
 {
     private static readonly ParameterSpec s_r10 = ParameterSpec.Number("r10", "Ω", "Resistance at 10 lx") with { Default = 15e3, Min = 1, Max = 1e9 };
     private static readonly ParameterSpec s_r10Tolerance = ParameterSpec.Number("r10Tolerance", "", "Relative spread of r10 between parts, for `nightsim spread` (common practice: ±30 % for photoresistors).") with { Default = 0.3, Min = 0, Max = 0.9 };
@@ -200,6 +200,35 @@ public sealed class Photoresistor : Device, ILightSensor
     }
 
     public override double NextBreakpoint(double time) => _light.NextBreakpoint(time);
+
+    /// <remarks>d ln G/dt = (G∞ − G)/(τ·G) at the last accepted point: right after the light jumps (a lamp switched, a
+    /// headlight gone) the conductance relaxes over seconds although nothing in the circuit's unknowns moves, and a
+    /// step longer than the relaxation could step over the threshold crossing it causes. While the cell follows a slowly
+    /// changing sky, G lags its target by τ·d ln G∞/dt and this bound equals the light-aware one.</remarks>
+    public double InternalStepLimit(double change)
+    {
+        if (!_hasHistory) return double.PositiveInfinity;
+        double gap = Math.Abs(_targetAccepted - _gAccepted);
+        if (!(gap > 0)) return double.PositiveInfinity;
+        double tau10 = _targetAccepted > _gAccepted ? _riseTime : _decayTime;
+        if (!(tau10 > 0)) return double.PositiveInfinity;
+        double tau = TimeConstant(tau10, _luxAccepted, _slowdown);
+        return change * tau * _gAccepted / gap;
+    }
+
+    /// <summary>One value: the lagging conductance, S.</summary>
+    public int InternalStateCount => 1;
+
+    public void ReadInternalState(Span<double> into) => into[0] = _gAccepted;
+
+    public void WriteInternalState(ReadOnlySpan<double> from, LoadContext ctx)
+    {
+        _gAccepted = from[0];
+        _luxAccepted = _light.Lux(ctx);
+        _targetAccepted = SteadyConductance(_luxAccepted);
+        _tAccepted = ctx.Time;
+        _hasHistory = true;
+    }
 
     private double SteadyConductance(double lux) =>
         (lux > 0.0 ? Math.Pow(lux / 10.0, _gamma) / _r10 : 0.0) + _gDark;
