@@ -50,7 +50,7 @@ public static class NightRun
         // The nodes, plus each relay's coil current: the analysis compares the coil against its pull-in from it.
         List<string> recorded = [.. nodes, .. devices.Select(d => d.Role).OfType<RelayCoilRole>().Select(r => r.CoilCurrent)];
         TransientOptions options = request.Options with { RecordNodes = recorded, ConstantLux = request.ConstantLux };
-        var solver = new TransientSolver(circuit, options, light) { Cancellation = request.Cancellation };
+        var solver = new TransientSolver(circuit, options, light) { Cancellation = request.Cancellation, TraceBuffers = request.TraceBuffers };
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
         var zoomIndices = nodes.Select(circuit.IndexOf).ToList();
@@ -60,18 +60,25 @@ public static class NightRun
         var detail = new ZoomCapture(zoomIndices, maxWindows: 6) { Before = 0.02, After = 0.06 };
         bool[] lastOn = new bool[loads.Count];
         double nextReport = 0;
+        bool capture = !request.SummaryOnly;
         solver.Accepted = s =>
         {
-            zoom.Add(s.Time, s.Solution);
-            detail.Add(s.Time, s.Solution);
+            if (capture)
+            {
+                zoom.Add(s.Time, s.Solution);
+                detail.Add(s.Time, s.Solution);
+            }
             for (int i = 0; i < lastOn.Length; i++)
             {
                 bool on = loads[i].LoadOn;
                 if (on != lastOn[i])
                 {
                     lastOn[i] = on;
-                    zoom.Mark(s.Time, on ? "load on" : "load off");
-                    if (on) detail.Mark(s.Time, "load on");
+                    if (capture)
+                    {
+                        zoom.Mark(s.Time, on ? "load on" : "load off");
+                        if (on) detail.Mark(s.Time, "load on");
+                    }
                 }
             }
             if (progress is not null && s.Time >= nextReport)
@@ -88,8 +95,8 @@ public static class NightRun
         RunFacts facts = RunFactsBuilder.Build(request, profile, devices, sim, stop);
         AnalysisResult analysis = NightAnalysis.Analyze(facts);
         NightReport report = BuildReport(request, profile, facts, analysis, sim);
-        TraceTable table = NightTraces.Table(facts, profile, sim, nodes);
-        IReadOnlyList<PlotData> plots = NightTraces.Plots(request, facts, analysis, profile, sim, [(zoom, "zoom"), (detail, "detail")], nodes);
+        TraceTable table = request.SummaryOnly ? TraceTable.Empty : NightTraces.Table(facts, profile, sim, nodes);
+        IReadOnlyList<PlotData> plots = request.SummaryOnly ? [] : NightTraces.Plots(request, facts, analysis, profile, sim, [(zoom, "zoom"), (detail, "detail")], nodes);
         return new NightRunResult(sim, profile, facts, analysis, report, table, plots);
     }
 

@@ -12,6 +12,7 @@ namespace NightSim.Studies;
 public sealed class SweepStudy
 {
     private readonly NightRunRequest _base;
+    private readonly StudyRunBuffers _buffers = new();
 
     public SweepStudy(NightRunRequest request, IReadOnlyList<SweepAxis> axes)
     {
@@ -95,7 +96,7 @@ public sealed class SweepStudy
     public SweepPoint Run(int index)
     {
         List<KeyValuePair<string, double>> values = ValuesOf(index);
-        NightRunResult r = NightRun.Run(_base with { Netlist = ToleranceModel.Apply(_base.Netlist, values) });
+        NightRunResult r = NightRun.Run(_buffers.ForThisThread(_base with { Netlist = ToleranceModel.Apply(_base.Netlist, values) }));
         return new SweepPoint(index, values, StudyOutcome.From(r));
     }
 }

@@ -15,6 +15,7 @@ namespace NightSim.Studies;
 public sealed class YearStudy
 {
     private readonly NightRunRequest _base;
+    private readonly StudyRunBuffers _buffers = new();
 
     public YearStudy(NightRunRequest request, DateOnly from, DateOnly to, int step = 1)
     {
@@ -74,7 +75,7 @@ public sealed class YearStudy
             Seed = seed,
             Weather = double.IsNaN(factor) ? sc.Weather : sc.Weather with { SkyFactor = factor },
         };
-        NightRunResult r = NightRun.Run(_base with { Scenario = night });
+        NightRunResult r = NightRun.Run(_buffers.ForThisThread(_base with { Scenario = night }));
         NightSummary? n = r.Report.Nights.Count > 0 ? r.Report.Nights[0] : null;
         return new YearNight(index, date, sky,
             n?.Sunset is DateTimeOffset ss ? ReportText.Iso(ss) : null,

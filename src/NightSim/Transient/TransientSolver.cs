@@ -186,6 +186,9 @@ public sealed partial class TransientSolver
     /// <summary>dq/dt at the last accepted point as the integration formula produced it (A on node rows).</summary>
     public ReadOnlySpan<double> ChargeDerivative => _qd;
 
+    /// <summary>Trace storage to take over from an earlier run on this thread (the runs of a study), or null.</summary>
+    public TraceBuffers? TraceBuffers { get; init; }
+
     /// <summary>Called after every accepted point (tests, progress). Must not allocate if the loop is to stay allocation-free.</summary>
     public Action<TransientSolver>? Accepted { get; set; }
 
@@ -890,7 +893,7 @@ public sealed partial class TransientSolver
                 units.Add("V");
             }
         }
-        return new TraceRecorder(indices, names, units, 0.0, stop, _options.TraceBuckets);
+        return new TraceRecorder(indices, names, units, 0.0, stop, _options.TraceBuckets, TraceBuffers);
     }
 
     /// <summary>The failure with the values of its worst unknowns at the last accepted point and the parts on them.</summary>
