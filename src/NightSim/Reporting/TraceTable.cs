@@ -15,6 +15,9 @@ public sealed record TraceTable(
     IReadOnlyList<string> Names,
     IReadOnlyList<double[]> Columns)
 {
+    /// <summary>No rows and no columns (a study's run keeps no trace table).</summary>
+    public static TraceTable Empty { get; } = new(DateTimeOffset.UnixEpoch, null, [], [], []);
+
     /// <summary>Throws <see cref="ArgumentException"/> when names and columns do not match or a column has the wrong length.</summary>
     public void Validate()
     {

@@ -40,6 +40,12 @@ public sealed class SolverStatistics
     /// <summary>Periods of the periodic source skipped by envelope jumps.</summary>
     public long SkippedCycles { get; internal set; }
 
+    /// <summary>Jumps over identical cycles of an oscillation (docs/numerics.md §10).</summary>
+    public long OscillationJumps { get; internal set; }
+
+    /// <summary>Oscillation cycles skipped by those jumps (their events are written, their steps are not taken).</summary>
+    public long SkippedOscillationCycles { get; internal set; }
+
     /// <summary>Breakpoints landed on exactly.</summary>
     public long Breakpoints { get; internal set; }
 

@@ -42,7 +42,9 @@ public sealed class TraceRecorder
     /// <param name="start">Run start time, seconds.</param>
     /// <param name="stop">Run stop time, seconds.</param>
     /// <param name="bucketCount">Number of decimation buckets (points kept ≤ 2·bucketCount + 2 per signal).</param>
-    public TraceRecorder(IReadOnlyList<int> indices, IReadOnlyList<string> names, IReadOnlyList<string> units, double start, double stop, int bucketCount)
+    /// <param name="buffers">Storage to take over from an earlier run on this thread (a study), or null for new arrays.</param>
+    public TraceRecorder(IReadOnlyList<int> indices, IReadOnlyList<string> names, IReadOnlyList<string> units, double start, double stop, int bucketCount,
+        TraceBuffers? buffers = null)
     {
         _indices = [.. indices];
         _names = [.. names];
@@ -51,17 +53,29 @@ public sealed class TraceRecorder
         _buckets = Math.Max(1, bucketCount);
         _width = Math.Max(stop - start, 1e-30) / _buckets;
         int capacity = 2 * _buckets + 4;
-        _times = new double[_indices.Length][];
-        _values = new double[_indices.Length][];
-        for (int s = 0; s < _indices.Length; s++)
-        {
-            _times[s] = new double[capacity];
-            _values[s] = new double[capacity];
-        }
         int rowCapacity = _buckets + 4 + RowReserve;
-        _rowTimes = new double[rowCapacity];
-        _rowValues = new double[_indices.Length][];
-        for (int s = 0; s < _indices.Length; s++) _rowValues[s] = new double[rowCapacity];
+        if (buffers is not null)
+        {
+            // Every array is written before it is read (counts start at zero), so old contents do no harm.
+            _times = TraceBuffers.Take(ref buffers.Times, _indices.Length, capacity);
+            _values = TraceBuffers.Take(ref buffers.Values, _indices.Length, capacity);
+            if (buffers.RowTimes.Length != rowCapacity) buffers.RowTimes = new double[rowCapacity];
+            _rowTimes = buffers.RowTimes;
+            _rowValues = TraceBuffers.Take(ref buffers.RowValues, _indices.Length, rowCapacity);
+        }
+        else
+        {
+            _times = new double[_indices.Length][];
+            _values = new double[_indices.Length][];
+            for (int s = 0; s < _indices.Length; s++)
+            {
+                _times[s] = new double[capacity];
+                _values[s] = new double[capacity];
+            }
+            _rowTimes = new double[rowCapacity];
+            _rowValues = new double[_indices.Length][];
+            for (int s = 0; s < _indices.Length; s++) _rowValues[s] = new double[rowCapacity];
+        }
         _pendingValues = new double[_indices.Length];
         _count = new int[_indices.Length];
         _bucketStart = new int[_indices.Length];
@@ -80,6 +94,10 @@ public sealed class TraceRecorder
         RecordRow(time, x, keep);
         RecordEnvelope(time, x);
     }
+
+    /// <summary>Add a point to the plots' envelope only, not to the rows (the accepted points of a skipped oscillation
+    /// cycle, moved to where the cycle would lie). Times non-decreasing, as for <see cref="Record"/>.</summary>
+    public void RecordEnvelopeOnly(double time, ReadOnlySpan<double> x) => RecordEnvelope(time, x);
 
     private void RecordRow(double time, ReadOnlySpan<double> x, bool keep)
     {

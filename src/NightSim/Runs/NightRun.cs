@@ -50,7 +50,7 @@ public static class NightRun
         // The nodes, plus each relay's coil current: the analysis compares the coil against its pull-in from it.
         List<string> recorded = [.. nodes, .. devices.Select(d => d.Role).OfType<RelayCoilRole>().Select(r => r.CoilCurrent)];
         TransientOptions options = request.Options with { RecordNodes = recorded, ConstantLux = request.ConstantLux };
-        var solver = new TransientSolver(circuit, options, light) { Cancellation = request.Cancellation };
+        var solver = new TransientSolver(circuit, options, light) { Cancellation = request.Cancellation, TraceBuffers = request.TraceBuffers };
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
         var zoomIndices = nodes.Select(circuit.IndexOf).ToList();
@@ -62,7 +62,7 @@ public static class NightRun
         double nextReport = 0;
         // A mains-fed supply is watched at every accepted point (the rail Zener's current, the relay drives, the ripple).
         Supply.SupplyWatch? supplyWatch = Supply.SupplyWatch.Create(circuit);
-        bool capture = request.PlotData;
+        bool capture = request.PlotData && !request.SummaryOnly;
         solver.Accepted = s =>
         {
             supplyWatch?.Observe(s.Time, s.Solution);
@@ -77,9 +77,11 @@ public static class NightRun
                 if (on != lastOn[i])
                 {
                     lastOn[i] = on;
-                    if (!capture) continue;
-                    zoom.Mark(s.Time, on ? "load on" : "load off");
-                    if (on) detail.Mark(s.Time, "load on");
+                    if (capture)
+                    {
+                        zoom.Mark(s.Time, on ? "load on" : "load off");
+                        if (on) detail.Mark(s.Time, "load on");
+                    }
                 }
             }
             if (progress is not null && s.Time >= nextReport)
@@ -96,9 +98,9 @@ public static class NightRun
         RunFacts facts = RunFactsBuilder.Build(request, profile, devices, sim, stop, supplyWatch);
         AnalysisResult analysis = NightAnalysis.Analyze(facts);
         NightReport report = BuildReport(request, profile, facts, analysis, sim);
-        TraceTable table = NightTraces.Table(facts, profile, sim, nodes);
+        TraceTable table = request.SummaryOnly ? TraceTable.Empty : NightTraces.Table(facts, profile, sim, nodes);
         // A long run plots its interesting nights only (PlottedNights states the rule).
-        IReadOnlyList<PlotData> plots = request.PlotData
+        IReadOnlyList<PlotData> plots = capture
             ? NightTraces.Plots(request, facts, analysis, profile, sim, [(zoom, "zoom"), (detail, "detail")], nodes,
                 PlottedNights.Select(report.Nights, report.TargetResults).ToHashSet())
             : [];

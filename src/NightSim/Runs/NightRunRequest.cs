@@ -36,6 +36,14 @@ public sealed record NightRunRequest
     /// keep only each run's outcome turn it off.</summary>
     public bool PlotData { get; init; } = true;
 
+    /// <summary>A study's run: the report and the analysis only, no trace table, plot data or zoom windows (the result's
+    /// <see cref="NightRunResult.Traces"/> and <see cref="NightRunResult.Plots"/> are then empty).</summary>
+    public bool SummaryOnly { get; init; }
+
+    /// <summary>Trace storage reused from the previous run on this thread (studies); the result's traces are valid only
+    /// until the next run with the same buffers starts.</summary>
+    public Results.TraceBuffers? TraceBuffers { get; init; }
+
     /// <summary>Stops the run at its next step (Ctrl+C, SIGTERM); the result is then marked interrupted.</summary>
     public CancellationToken Cancellation { get; init; }
 }

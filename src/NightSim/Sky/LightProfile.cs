@@ -48,9 +48,10 @@ public sealed class LightProfile : ILightSignal
         // Sun elevation on a 30 s grid; Lux interpolates it linearly (curvature error below 5e-5°).
         int n = Math.Max(1, (int)Math.Ceiling(Duration / SunGridSeconds));
         _gridStep = Duration / n;
-        _elevation = new double[n + 1];
         double jd0 = SunPosition.JulianDay(Timeline.Origin);
-        for (int i = 0; i <= n; i++) _elevation[i] = SunPosition.Elevation(jd0 + i * _gridStep / 86400.0, site.Latitude, site.Longitude);
+        // Shared with every profile of the same site and window (the runs of a study): computed once.
+        SkyGrid grid = SkyGrid.For(jd0, _gridStep, n + 1, site.Latitude, site.Longitude);
+        _elevation = grid.SunElevation;
 
         Weather w = scenario.Weather;
         _skyFactor = w.SkyFactor;
@@ -70,11 +71,8 @@ public sealed class LightProfile : ILightSignal
         {
             // Moonlight on the same grid (USNO Circular 171 moonlight formula, Moon from MoonPosition), linear between points.
             _moonLux = new double[n + 1];
-            for (int i = 0; i <= n; i++)
-            {
-                double jd = jd0 + i * _gridStep / 86400.0;
-                _moonLux[i] = IlluminanceModel.MoonLux(MoonPosition.Altitude(jd, site.Latitude, site.Longitude), MoonPosition.Elongation(jd), w.SkyFactor);
-            }
+            double[] altitude = grid.MoonAltitude, elongation = grid.MoonElongation;
+            for (int i = 0; i <= n; i++) _moonLux[i] = IlluminanceModel.MoonLux(altitude[i], elongation[i], w.SkyFactor);
         }
         _floorLux = w.FloorLux;
         _channelNames = [.. scenario.Channels.Select(c => c.Name)];

@@ -36,6 +36,11 @@ public static class BenchRunner
         {
             if (only is not null && only.Count > 0 && !only.Contains(w.Name)) continue;
             progress?.Invoke(w.Name);
+            if (w.SpreadRuns > 0)
+            {
+                measurements.Add(RunSpread(w, demoDir, calibration));
+                continue;
+            }
             // The year is long enough to need no warm-up of its own: the shorter workloads before it have compiled the code.
             int wu = w.Name.StartsWith("quiet-year", StringComparison.Ordinal) ? 0 : warmups;
             int r = w.Name.StartsWith("quiet-year", StringComparison.Ordinal) ? Math.Min(reps, 3) : reps;
@@ -67,6 +72,41 @@ public static class BenchRunner
                 OnTimeError(last), calibration > 0 ? solverCpu / calibration : double.NaN, r));
         }
         return new BenchReport(quick, calibration, measurements);
+    }
+
+    /// <summary>
+    /// A spread as <c>nightsim spread</c> runs it (drawn part values, seeded per run, every core, each run reduced to its
+    /// outcome), timed once as a whole: wall and process CPU of the study, steps and iterations summed over the runs,
+    /// bytes allocated per step over the whole study. Per-run solver CPU is not separable while runs share the cores, so
+    /// the solver CPU reported is the study's process CPU.
+    /// </summary>
+    private static BenchMeasurement RunSpread(BenchWorkload w, string demoDir, double calibration)
+    {
+        NightRunRequest request = w.Build(demoDir);
+        var study = new SpreadStudy(request, w.SpreadRuns, corners: false, seed: 1);
+        var buffers = new StudyRunBuffers();
+        int[] indices = [.. Enumerable.Range(0, study.Total)];
+        GC.Collect();
+        long bytes0 = GC.GetTotalAllocatedBytes(precise: true);
+        long c0 = CpuTicks();
+        var sw = Stopwatch.StartNew();
+        SolverStatistics?[] stats = StudyRunner.Run(indices, i =>
+        {
+            NightRunResult r = NightRun.Run(buffers.ForThisThread(study.Request(i)));
+            if (r.Simulation.Failure is SimulationFailure f)
+                throw new InvalidOperationException($"bench workload {w.Name} run {i} failed at {f.Time} s: {f.Reason}");
+            _ = StudyOutcome.From(r);
+            return r.Simulation.Statistics;
+        }, Environment.ProcessorCount, CancellationToken.None);
+        sw.Stop();
+        double cpu = Seconds(CpuTicks() - c0);
+        long bytes = GC.GetTotalAllocatedBytes(precise: true) - bytes0;
+        SolverStatistics[] all = [.. stats.OfType<SolverStatistics>()];
+        long steps = all.Sum(s => s.AcceptedSteps);
+        return new BenchMeasurement(w.Name, w.Description, w.SpreadRuns * NightRun.DefaultDuration,
+            sw.Elapsed.TotalSeconds, cpu, cpu, steps, all.Sum(s => s.RejectedSteps), all.Sum(s => s.NewtonIterations),
+            all.Sum(s => s.Factorizations), all.Sum(s => s.Events), steps > 0 ? bytes / (double)steps : 0.0, null,
+            calibration > 0 ? cpu / calibration : double.NaN, 1);
     }
 
     /// <summary>Largest |actual − closed form| / closed form over the on-intervals the timer ended, or null.</summary>

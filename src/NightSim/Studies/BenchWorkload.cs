@@ -9,7 +9,9 @@ namespace NightSim.Studies;
 /// <param name="Name">Short name used in tables and JSON.</param>
 /// <param name="Description">What it exercises, in plain words.</param>
 /// <param name="Build">Builds the run request from the demo folder.</param>
-public sealed record BenchWorkload(string Name, string Description, Func<string, NightRunRequest> Build)
+/// <param name="SpreadRuns">For a study workload: the number of spread runs (each a night run with drawn part values),
+/// run on every core; 0 for a single night run.</param>
+public sealed record BenchWorkload(string Name, string Description, Func<string, NightRunRequest> Build, int SpreadRuns = 0)
 {
     /// <summary>The reference set. <paramref name="quick"/> shortens the long workload (a month of nights instead of a
     /// year) so the whole set fits a CI run.</summary>
@@ -22,6 +24,9 @@ public sealed record BenchWorkload(string Name, string Description, Func<string,
         quick
             ? new("quiet-month", "garden-path demo through 30 nights", dir => Demo(dir, "garden-path", 30))
             : new("quiet-year", "garden-path demo through 365 nights", dir => Demo(dir, "garden-path", 365)),
+        quick
+            ? new("spread-20", "nightsim spread of the garden-path demo, 20 runs on every core", dir => Demo(dir, "garden-path"), 20)
+            : new("spread-1000", "nightsim spread of the garden-path demo, 1000 runs on every core", dir => Demo(dir, "garden-path"), 1000),
     ];
 
     /// <summary>A demo netlist with the scenario beside it, optionally through another number of nights.</summary>

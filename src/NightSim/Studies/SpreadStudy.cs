@@ -18,6 +18,7 @@ namespace NightSim.Studies;
 public sealed class SpreadStudy
 {
     private readonly NightRunRequest _base;
+    private readonly StudyRunBuffers _buffers = new();
 
     public SpreadStudy(NightRunRequest request, int runs, bool corners, ulong seed)
     {
@@ -120,7 +121,7 @@ public sealed class SpreadStudy
     public SpreadRun Run(int index)
     {
         (ulong seed, string label, string? sky, List<KeyValuePair<string, double>> values) = Draw(index);
-        NightRunResult r = NightRun.Run(Request(index));
+        NightRunResult r = NightRun.Run(_buffers.ForThisThread(Request(index)));
         return new SpreadRun(index, seed, label, sky, values, StudyOutcome.From(r));
     }
 }

@@ -14,6 +14,7 @@ public sealed class SweepStudy
 {
     private readonly NightRunRequest _base;
     private readonly ScenarioVariants? _scenarios;
+    private readonly StudyRunBuffers _buffers = new();
 
     /// <param name="request">The design and its (first) scenario.</param>
     /// <param name="axes">What to vary.</param>
@@ -190,7 +191,7 @@ public sealed class SweepStudy
 
     public SweepPoint Run(int index)
     {
-        NightRunResult r = NightRun.Run(Request(index));
+        NightRunResult r = NightRun.Run(_buffers.ForThisThread(Request(index)));
         return new SweepPoint(index, ValuesOf(index), StudyOutcome.From(r));
     }
 }

@@ -34,6 +34,7 @@ public sealed class TuneStudy
     public const int MaxGrid = 20_000, MaxFullGrid = 400;
 
     private readonly NightRunRequest _base;
+    private readonly StudyRunBuffers _buffers = new();
 
     public TuneStudy(NightRunRequest request, IReadOnlyList<SweepAxis> axes, string nights, bool corners, int confirm)
     {
@@ -216,7 +217,7 @@ public sealed class TuneStudy
         List<KeyValuePair<string, double>> ends = corner.Values(ToleranceModel.For(net));
         net = ToleranceModel.Apply(net, ends);
         var all = values.Where(v => !ends.Any(e => e.Key == v.Key)).Concat(ends).ToList();
-        NightRunResult r = NightRun.Run(_base with { Netlist = net, Scenario = night.Apply(Scenario) });
+        NightRunResult r = NightRun.Run(_buffers.ForThisThread(_base with { Netlist = net, Scenario = night.Apply(Scenario) }));
         var checks = TuneCheck.From(r.Report.TargetResults.SelectMany(t => t.Checks));
         return new TuneRun(index, candidate, night.Text, corner.Label, all, checks, r.Simulation.Failure?.ToString());
     }

@@ -15,6 +15,7 @@ namespace NightSim.Studies;
 public sealed class YearStudy
 {
     private readonly NightRunRequest _base;
+    private readonly StudyRunBuffers _buffers = new();
 
     public YearStudy(NightRunRequest request, DateOnly from, DateOnly to, int step = 1)
     {
@@ -89,7 +90,7 @@ public sealed class YearStudy
     {
         DateOnly date = DateOf(index);
         string sky = SkyOf(date);
-        NightRunResult r = NightRun.Run(_base with { Scenario = NightOf(date) });
+        NightRunResult r = NightRun.Run(_buffers.ForThisThread(_base with { Scenario = NightOf(date) }));
         NightSummary? n = r.Report.Nights.Count > 0 ? r.Report.Nights[0] : null;
         return new YearNight(index, date, sky,
             n?.Sunset is DateTimeOffset ss ? ReportText.Iso(ss) : null,

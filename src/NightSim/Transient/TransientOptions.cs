@@ -46,11 +46,16 @@ public sealed record TransientOptions
     /// them; this bound keeps them followed through dusk and dawn.</summary>
     public double LightChange { get; init; } = 0.1;
 
-    /// <summary>Largest growth of h per step right after a restart (an event or an ideal edge), while the error estimate
-    /// allows it. The default equals <see cref="MaxGrowth"/> (no faster regrowth): larger values (3 to 100) cut the steps
-    /// after each event by half or more, but in month-long runs of the garden-path demo a relay pull-in late in the run
-    /// then failed Newton at the smallest step; until that is understood the faster regrowth is opt-in.</summary>
-    public double RestartGrowth { get; init; } = 2.0;
+    /// <summary>Largest growth of h per step while h is not yet limited by the error estimate: after a restart (an event,
+    /// an ideal edge, the start) and after landing on a breakpoint, h was set by the event or the breakpoint, and the
+    /// error estimate of each step alone chooses the next, up to this factor, until it holds h below
+    /// <see cref="MaxGrowth"/>. So a step after an event starts at <see cref="RestartStep"/> and reaches the length the
+    /// error allows in a few steps instead of doubling up from it.</summary>
+    public double RestartGrowth { get; init; } = 1e4;
+
+    /// <summary>Newton iterations per stage in the damped retries after a failed step (each moves a node by at most
+    /// <see cref="NewtonVoltageStepLimit"/>, so a 12 V swing needs a dozen of them).</summary>
+    public int DampedNewtonIterations { get; init; } = 25;
 
     /// <summary>Smallest step, seconds (the solver also never goes below 16 ulp of the current time).</summary>
     public double MinStep { get; init; } = 1e-13;
@@ -110,6 +115,18 @@ public sealed record TransientOptions
 
     /// <summary>Full detail kept after power-up, every event and every breakpoint before the next jump, seconds.</summary>
     public double EnvelopeDetailWindow { get; init; } = 1.0;
+
+    /// <summary>Oscillation skipping: once three cycles of a switching oscillation (a relay chattering at dusk) were
+    /// alike, jump whole cycles forward along their measured per-cycle change, writing their events (docs/numerics.md
+    /// §10). False: every cycle in full detail.</summary>
+    public bool OscillationSkipping { get; init; } = true;
+
+    /// <summary>Oscillation tolerance: the time error the period's curvature may add over a jump, as a fraction of the
+    /// jump's span, and the curvature error of each state's extrapolation, as a fraction of its scale.</summary>
+    public double OscillationTolerance { get; init; } = 1e-2;
+
+    /// <summary>Most cycles skipped in one jump.</summary>
+    public double OscillationMaxCycles { get; init; } = 10_000;
 
     /// <summary>How the run starts.</summary>
     public StartMode Start { get; init; } = StartMode.PowerUp;

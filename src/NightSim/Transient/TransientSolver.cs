@@ -27,6 +27,9 @@ public sealed partial class TransientSolver
     private static readonly double s_b = (1.0 - s_gamma) * (1.0 - s_gamma) / (s_gamma * (2.0 - s_gamma));
     private static readonly double s_k = (-3.0 * s_gamma * s_gamma + 4.0 * s_gamma - 2.0) / (12.0 * (2.0 - s_gamma));
 
+    /// <summary>Longest reach of the stage-1 predictor, in lengths of the last step.</summary>
+    private const double MaxPredictorReach = 10.0;
+
     private readonly Circuit _circuit;
     private readonly TransientOptions _options;
     private readonly ILightSignal? _light;
@@ -183,6 +186,9 @@ public sealed partial class TransientSolver
     /// <summary>dq/dt at the last accepted point as the integration formula produced it (A on node rows).</summary>
     public ReadOnlySpan<double> ChargeDerivative => _qd;
 
+    /// <summary>Trace storage to take over from an earlier run on this thread (the runs of a study), or null.</summary>
+    public TraceBuffers? TraceBuffers { get; init; }
+
     /// <summary>Called after every accepted point (tests, progress). Must not allocate if the loop is to stay allocation-free.</summary>
     public Action<TransientSolver>? Accepted { get; set; }
 
@@ -232,6 +238,8 @@ public sealed partial class TransientSolver
         SetTolerances();
         ExcludeFloorOnlyNodesFromNorm();
         SetUpEnvelope();
+        SetUpInternalStates();
+        SetUpOscillationSkipping();
         if (_options.Start == StartMode.PowerUp) _needRestart = !AlgebraicRowsSatisfied();
         RecordPoint(keepRow: true);
         EvaluateEvents(_x, 0.0, _gNew, _gOld);
@@ -287,6 +295,8 @@ public sealed partial class TransientSolver
             double bp = NextBreakpoint(t);
             double h = Math.Min(_h, _maxStep);
             if (_light is not null && _options.FixedStep is null) h = Math.Min(h, _light.StepLimit(t, _options.LightChange));
+            if (_internal.Length > 0 && _options.FixedStep is null) h = Math.Min(h, InternalStepLimit());
+            if (_eventRate.Length > 0 && _options.FixedStep is null) h = Math.Min(h, EventApproachLimit());
             if (_options.FixedStep is null) h = Math.Max(h, hMin);
             double dist = bp - t;
             bool landing = false;
@@ -311,6 +321,8 @@ public sealed partial class TransientSolver
                 _rejectedLast = true;
                 _damped = true; // retries at this point take damped Newton corrections
                 _h = h / (_failuresHere > 1 ? 8.0 : 4.0);
+                // Late in a long run the smallest step is a nanosecond or more: try once at it before the aids below.
+                if (_h < hMin && h > hMin * (1.0 + 1e-9)) _h = hMin;
                 if (_failuresHere >= 2) _needRestart = true; // two failures at this point: fall back to BE
                 if (_h < hMin && StartContinuation())
                 {
@@ -400,6 +412,7 @@ public sealed partial class TransientSolver
             StepEnd end = StepEnd.Smooth;
             if (fired)
             {
+                OscillationAtEvents(); // may move time and state on by whole cycles of an oscillation
                 if (!FireEvents()) return false;
                 end = StepEnd.EventsFired;
             }
@@ -431,6 +444,7 @@ public sealed partial class TransientSolver
                 double hSharp = (NextBreakpoint(tNow) - tNow) / 10.0;
                 _h = _options.FixedStep ?? Math.Min(hNext, Math.Max(hSharp, _options.RestartStep));
                 if (restart) _needRestart = false;
+                _ramping = true; // h was set by the breakpoint, not by the error estimate
                 break;
             default:
                 _h = hNext;
@@ -459,11 +473,11 @@ public sealed partial class TransientSolver
     /// keeps that saving. Otherwise h follows the error estimate freely.</param>
     private double ProposeStep(double h, double r, bool reusedLu)
     {
-        // Right after a restart the error estimate alone limits growth (up to RestartGrowth per step) until the first
-        // step that it holds back; from then on the usual MaxGrowth applies.
+        // After a restart or a landing, h was set by the event or the breakpoint, not by the error estimate: the estimate
+        // alone limits growth (up to RestartGrowth per step) until it holds h below MaxGrowth; then MaxGrowth applies.
         double maxGrowth = _ramping && !_rejectedLast ? Math.Max(_options.RestartGrowth, _options.MaxGrowth) : _options.MaxGrowth;
         double fac = r > 0 ? 0.9 * Math.Pow(r / _options.ErrorTarget, -1.0 / 3.0) : maxGrowth;
-        if (!(fac >= maxGrowth) || _rejectedLast) _ramping = false;
+        if (!(fac >= _options.MaxGrowth) || _rejectedLast) _ramping = false;
         double hNew;
         if (fac >= 1.0 && (fac <= 1.2 && reusedLu || fac <= 1.02)) hNew = h; // hysteresis: keep h (and its LU)
         else hNew = h * Math.Min(maxGrowth, Math.Max(0.2, fac));
@@ -502,9 +516,11 @@ public sealed partial class TransientSolver
         if (_eventSource.Length > 0)
         {
             EvaluateEvents(_x, tNow, _gNew, _gOld);
+            NoteEventRates(h, restart);
             Array.Copy(_gNew, _gOld, _gOld.Length);
         }
         EnvelopeObserve(!double.IsNaN(landAt));
+        OscillationObserve();
         Accepted?.Invoke(this);
     }
 
@@ -530,9 +546,14 @@ public sealed partial class TransientSolver
         double[] hist = _hist;
         // Stage 1 (trapezoidal over γh).
         for (int i = 0; i < n; i++) hist[i] = alpha * _q[i] + _qd[i];
-        if (_havePrev && _hLast > 0)
+        // A retry after a Newton failure starts from the last accepted point: the extrapolation of a node that collapses
+        // within the step (a transistor saturating onto a coil) is what failed.
+        if (_havePrev && _hLast > 0 && _failuresHere == 0)
         {
-            double f = s_gamma * h / _hLast;
+            // The straight line through the last two points is extrapolated at most MaxPredictorReach of the last step
+            // (after a restart h grows by up to RestartGrowth in one step: a node that followed a source's ramp through a
+            // nanosecond step extrapolated over a second lands Newton on the wrong branch of a latch).
+            double f = s_gamma * Math.Min(h / _hLast, MaxPredictorReach);
             for (int i = 0; i < n; i++) x[i] = _x[i] + f * (_x[i] - _xPrev[i]);
         }
         else
@@ -661,6 +682,7 @@ public sealed partial class TransientSolver
         double[] x = _ctx.X, rhs = _rhs;
         double rel = 0.1 * _options.RelativeTolerance;
         int max = _ctx.IsOperatingPoint ? _options.MaxOperatingPointIterations : _options.MaxNewtonIterations;
+        if (_damped) max = Math.Max(max, _options.DampedNewtonIterations); // damped corrections need more of them
         for (int it = 0; it < max; it++)
         {
             _ctx.Limited = false;
@@ -871,7 +893,7 @@ public sealed partial class TransientSolver
                 units.Add("V");
             }
         }
-        return new TraceRecorder(indices, names, units, 0.0, stop, _options.TraceBuckets);
+        return new TraceRecorder(indices, names, units, 0.0, stop, _options.TraceBuckets, TraceBuffers);
     }
 
     /// <summary>The failure with the values of its worst unknowns at the last accepted point and the parts on them.</summary>

@@ -19,7 +19,7 @@ public sealed class BenchTests
         using JsonDocument doc = JsonDocument.Parse(output.ToString());
         JsonElement workloads = doc.RootElement.GetProperty("workloads");
         string[] names = [.. workloads.EnumerateArray().Select(w => w.GetProperty("name").GetString()!)];
-        Assert.Equal(["quiet-night", "busy-night", "chatter-night", "quiet-month"], names);
+        Assert.Equal(["quiet-night", "busy-night", "chatter-night", "quiet-month", "spread-20"], names);
         Assert.True(doc.RootElement.GetProperty("calibrationCpuSeconds").GetDouble() > 0);
         foreach (JsonElement w in workloads.EnumerateArray())
         {
@@ -42,8 +42,12 @@ public sealed class BenchTests
             double err = byName[i].GetProperty("error").GetDouble();
             Assert.True(err >= 0 && err <= 1e-3, $"{names[i]}: on-time error {err:P3}");
         }
-        // The chatter night has no timer: no closed form to compare with.
+        // The chatter night has no timer: no closed form to compare with; a spread's runs have drawn part values.
         Assert.Equal(JsonValueKind.Null, byName[2].GetProperty("error").ValueKind);
+        Assert.Equal(JsonValueKind.Null, byName[4].GetProperty("error").ValueKind);
+        // The spread is twenty garden-path nights: each at least as many steps as the dusk and the timer's end need.
+        Assert.Equal(20 * 86400.0, byName[4].GetProperty("simulatedSeconds").GetDouble());
+        Assert.True(byName[4].GetProperty("acceptedSteps").GetInt64() > 20 * 100);
         // The busy night is busier than the quiet night: its noise pulses and events cost steps.
         Assert.True(byName[1].GetProperty("acceptedSteps").GetInt64() > byName[0].GetProperty("acceptedSteps").GetInt64());
     }

@@ -61,11 +61,15 @@ public sealed class LightInput
     public Roles.LightSensorRole Role(string partId, IReadOnlyList<string> nodes, double lagSeconds) => new(partId, ChannelName, nodes, lagSeconds);
 
     /// <summary>Illuminance on the sensor at ctx.Time, lux (never negative).</summary>
-    public double Lux(LoadContext ctx)
+    public double Lux(LoadContext ctx) => Lux(ctx, ctx.Time);
+
+    /// <summary>Illuminance on the sensor at run time <paramref name="time"/>, lux (never negative), with the discrete
+    /// state of <paramref name="ctx"/> (a lamp lighting its own sensor). Allocation-free.</summary>
+    public double Lux(LoadContext ctx, double time)
     {
         double lux = ctx.Light is not null && _channel >= 0
-            ? ctx.Lux(_channel)
-            : _times.Length > 0 ? Pwl(ctx.Time) : _constant ?? ctx.ConstantLux;
+            ? ctx.Light.Lux(_channel, time)
+            : _times.Length > 0 ? Pwl(time) : _constant ?? ctx.ConstantLux;
         return Math.Max(0.0, lux * Gain);
     }
 

@@ -11,14 +11,16 @@ namespace NightSim.Devices.Light;
 /// fixed time constants.
 /// </summary>
 /// <remarks>
-/// The lag is exact for a target conductance that moves linearly over the step. With (t_a, G_a, G∞a) the last accepted
+/// The lag is exact for a target conductance that moves linearly over the step; where the target moves by more than
+/// 10 % over a step, the step is split into sub-intervals along the light's own course (every edge of the light is a
+/// breakpoint the solver lands on, so between two of them the light is monotone and the ends bound its change). With (t_a, G_a, G∞a) the last accepted
 /// point, its target, x = (t − t_a)/τ and Δ = G∞(t) − G∞a, the first-order response to the ramp is
 /// G(t) = G_a·e^(−x) + G∞a·(1 − e^(−x)) + Δ·(1 − (1 − e^(−x))/x), independent of the step size (a constant target is
 /// the case Δ = 0). τ is the rise or decay constant by the sign of G∞ − G_a; with k ≠ 0 the rate 1/τ is averaged over
 /// the step's two ends (trapezoid). Load evaluates it at the iterate's time (consistent inside a step); Accept commits
 /// it. Before the first accepted point the cell is in steady state with its light.
 /// </remarks>
-public sealed class Photoresistor : Device, ILightSensor
+public sealed class Photoresistor : Device, ILightSensor, IInternalState
 {
     private static readonly ParameterSpec s_r10 = ParameterSpec.Number("r10", "Ω", "Resistance at 10 lx") with { Default = 15e3, Min = 1, Max = 1e9 };
     private static readonly ParameterSpec s_r10Tolerance = ParameterSpec.Number("r10Tolerance", "", "Relative spread of r10 between parts, for `nightsim spread` (common practice: ±30 % for photoresistors).") with { Default = 0.3, Min = 0, Max = 0.9 };
@@ -108,15 +110,53 @@ public sealed class Photoresistor : Device, ILightSensor
         double lux = _light.Lux(ctx);
         double target = SteadyConductance(lux);
         if (!_hasHistory) return target;
-        double tau10 = target > _gAccepted ? _riseTime : _decayTime;
         double dt = ctx.Time - _tAccepted;
-        if (tau10 <= 0.0) return target;
-        if (dt <= 0.0) return _gAccepted;
-        // Rate 1/τ averaged over the step's ends (exact for k = 0).
+        // Where the target moves by more than SubstepChange (in ln) over the step (a headlight's ramp, a lightning
+        // stroke's decay), the light's own course through the step is followed in sub-intervals: the result then does
+        // not depend on how long the solver's step is.
+        double change = Math.Abs(Math.Log(target / _targetAccepted));
+        if (!(dt > 0.0) || !(change > SubstepChange)) return Relax(_gAccepted, _targetAccepted, target, _luxAccepted, lux, dt);
+        if (ctx.Time == _cacheTime && _tAccepted == _cacheAccepted && lux == _cacheLux) return _cacheG;
+        int n = (int)Math.Min(MaxSubsteps, Math.Ceiling(change / SubstepChange));
+        double g = _gAccepted, tPrev = _tAccepted, targetPrev = _targetAccepted, luxPrev = _luxAccepted;
+        for (int k = 1; k <= n; k++)
+        {
+            double tk = k == n ? ctx.Time : _tAccepted + dt * k / n;
+            double luxK = k == n ? lux : _light.Lux(ctx, tk);
+            double targetK = k == n ? target : SteadyConductance(luxK);
+            g = Relax(g, targetPrev, targetK, luxPrev, luxK, tk - tPrev);
+            tPrev = tk;
+            targetPrev = targetK;
+            luxPrev = luxK;
+        }
+        _cacheTime = ctx.Time;
+        _cacheAccepted = _tAccepted;
+        _cacheLux = lux;
+        _cacheG = g;
+        return g;
+    }
+
+    /// <summary>Largest change of ln(target conductance) followed in one piece; a larger change over a step is split
+    /// into equal sub-intervals of time (the light between two breakpoints is monotone, so its ends bound it).</summary>
+    public const double SubstepChange = 0.1;
+
+    /// <summary>Most sub-intervals per step.</summary>
+    public const int MaxSubsteps = 256;
+
+    private double _cacheTime = double.NaN, _cacheAccepted = double.NaN, _cacheLux = double.NaN, _cacheG;
+
+    /// <summary>The lag over <paramref name="dt"/> from <paramref name="g"/> with the target moving linearly between
+    /// the two values; the rise or decay time constant by the sign of the end target against g.</summary>
+    private double Relax(double g, double targetStart, double targetEnd, double luxStart, double luxEnd, double dt)
+    {
+        double tau10 = targetEnd > g ? _riseTime : _decayTime;
+        if (tau10 <= 0.0) return targetEnd;
+        if (dt <= 0.0) return g;
+        // Rate 1/τ averaged over the interval's ends (exact for k = 0).
         double rate = _slowdown == 0.0
             ? 1.0 / tau10
-            : 0.5 * (1.0 / TimeConstant(tau10, _luxAccepted, _slowdown) + 1.0 / TimeConstant(tau10, lux, _slowdown));
-        return RampResponse(_gAccepted, _targetAccepted, target, dt * rate);
+            : 0.5 * (1.0 / TimeConstant(tau10, luxStart, _slowdown) + 1.0 / TimeConstant(tau10, luxEnd, _slowdown));
+        return RampResponse(g, targetStart, targetEnd, dt * rate);
     }
 
     /// <summary>
@@ -160,6 +200,35 @@ public sealed class Photoresistor : Device, ILightSensor
     }
 
     public override double NextBreakpoint(double time) => _light.NextBreakpoint(time);
+
+    /// <remarks>d ln G/dt = (G∞ − G)/(τ·G) at the last accepted point: right after the light jumps (a lamp switched, a
+    /// headlight gone) the conductance relaxes over seconds although nothing in the circuit's unknowns moves, and a
+    /// step longer than the relaxation could step over the threshold crossing it causes. While the cell follows a slowly
+    /// changing sky, G lags its target by τ·d ln G∞/dt and this bound equals the light-aware one.</remarks>
+    public double InternalStepLimit(double change)
+    {
+        if (!_hasHistory) return double.PositiveInfinity;
+        double gap = Math.Abs(_targetAccepted - _gAccepted);
+        if (!(gap > 0)) return double.PositiveInfinity;
+        double tau10 = _targetAccepted > _gAccepted ? _riseTime : _decayTime;
+        if (!(tau10 > 0)) return double.PositiveInfinity;
+        double tau = TimeConstant(tau10, _luxAccepted, _slowdown);
+        return change * tau * _gAccepted / gap;
+    }
+
+    /// <summary>One value: the lagging conductance, S.</summary>
+    public int InternalStateCount => 1;
+
+    public void ReadInternalState(Span<double> into) => into[0] = _gAccepted;
+
+    public void WriteInternalState(ReadOnlySpan<double> from, LoadContext ctx)
+    {
+        _gAccepted = from[0];
+        _luxAccepted = _light.Lux(ctx);
+        _targetAccepted = SteadyConductance(_luxAccepted);
+        _tAccepted = ctx.Time;
+        _hasHistory = true;
+    }
 
     private double SteadyConductance(double lux) =>
         (lux > 0.0 ? Math.Pow(lux / 10.0, _gamma) / _r10 : 0.0) + _gDark;

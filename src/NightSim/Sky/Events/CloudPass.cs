@@ -34,7 +34,8 @@ public sealed class CloudPass : ILightEvent
         return 1.0 - Depth * s * s;
     }
 
-    public void AddBreakpoints(List<double> into) { into.Add(Start); into.Add(End); }
+    /// <summary>Start, darkest moment and end: between two of them the cloud's factor is monotone.</summary>
+    public void AddBreakpoints(List<double> into) { into.Add(Start); into.Add(0.5 * (Start + End)); into.Add(End); }
 }
 
 /// <summary>
