@@ -26,6 +26,10 @@ public sealed partial class TransientSolver
     private bool[] _floorOnly = [];
     private int[] _floatingDiagonal = [];
 
+    /// <summary>For each unknown of a floating group, the group's anchor (the node with the floor capacitance); -1 for
+    /// every other unknown. The error norm measures a group's nodes against their anchor (see <see cref="ErrorNorm"/>).</summary>
+    private int[] _groupAnchor = [];
+
     /// <summary>Node voltages that had no path to ground at power-up and carry the floor capacitance (labels).</summary>
     public IReadOnlyList<string> FloatingNodes => [.. _floatingNodes.Select(i => _circuit.Labels[i])];
 
@@ -91,6 +95,9 @@ public sealed partial class TransientSolver
         int[] diag = _circuit.NodeDiagonal;
         var nodes = new List<int>();
         var grouped = new bool[_n];
+        var members = new List<int>();
+        _groupAnchor = new int[_n];
+        Array.Fill(_groupAnchor, -1);
         for (int start = 0; start < _n; start++)
         {
             if (reached[start] || grouped[start]) continue;
@@ -98,9 +105,11 @@ public sealed partial class TransientSolver
             double bestC = -1, bestG = -1;
             grouped[start] = true;
             queue.Enqueue(start);
+            members.Clear();
             while (queue.Count > 0)
             {
                 int i = queue.Dequeue();
+                members.Add(i);
                 if (diag[i] >= 0)
                 {
                     double c = Math.Abs(_ctx.C[diag[i]]), g = Math.Abs(_ctx.G[diag[i]]);
@@ -113,7 +122,10 @@ public sealed partial class TransientSolver
                     queue.Enqueue(j);
                 }
             }
-            if (best >= 0) nodes.Add(best);
+            if (best < 0) continue;
+            nodes.Add(best);
+            foreach (int i in members)
+                if (_circuit.Kinds[i] != UnknownKind.Branch) _groupAnchor[i] = best;
         }
         _floatingNodes = [.. nodes];
         _floatingDiagonal = [.. nodes.Select(i => diag[i])];

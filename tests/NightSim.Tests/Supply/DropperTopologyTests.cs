@@ -162,6 +162,11 @@ public sealed class DropperTopologyTests
         };
         var meter = SupplyMeter.Run(Circuit.FromDevices("secondary-bridge", parts), 2.0, 1.6, "dcp", "dcn");
         Assert.True(meter.Result.Succeeded, meter.Result.Failure?.ToString());
+        // The DC side floats behind the bridge (the secondary's return is ground): at every zero crossing all four
+        // diodes are off and the side's potential against ground is held only by the floor capacitance. That common
+        // mode is not a circuit quantity; once it drove the error estimate to picosecond steps for millions of steps.
+        // 100 cycles need a few thousand steps (measured 6 568).
+        Assert.True(meter.Result.Statistics.AcceptedSteps < 30_000, $"{meter.Result.Statistics.AcceptedSteps} steps");
         double simple = meter.Average / rl / (2 * F * cs);
         double conduction = Math.Sqrt(2 * simple / meter.Max);
         double predicted = simple * (1 - conduction / Math.PI);
