@@ -11,8 +11,8 @@ namespace NightSim.Transient;
 /// </summary>
 public static class PowerUpRamp
 {
-    /// <summary>Independent sources with a corner of their waveform before the end of the ramp: (part id, first corner
-    /// time in seconds). Empty when the run starts from the operating point or the ramp is 0.</summary>
+    /// <summary>Independent sources whose waveform jumps before the end of the ramp: (part id, first corner time in
+    /// seconds); a corner that only changes the slope (a sine from its zero, a sloped edge) is not reported. Empty when the run starts from the operating point or the ramp is 0.</summary>
     public static IReadOnlyList<(string PartId, double Corner)> SourceCornersInside(Circuit circuit, TransientOptions options)
     {
         ArgumentNullException.ThrowIfNull(circuit);
@@ -29,7 +29,15 @@ public static class PowerUpRamp
             };
             if (w is null) continue;
             double corner = w.NextBreakpoint(-1e-12);
-            if (corner < options.SupplyRamp) found.Add((d.PartId, Math.Max(0.0, corner)));
+            if (!(corner < options.SupplyRamp)) continue;
+            // Only a jump or a fast edge is reshaped by the ramp; a source that merely starts to change (a sine from its zero, a pulse's
+            // sloped edge) rises under the ramp as it would anyway.
+            double at = Math.Max(0.0, corner);
+            // Fast against the ramp: more than 1 % of its peak within a hundredth of the ramp (a 50 Hz sine from its zero
+            // moves 0.3 %).
+            double within = options.SupplyRamp / 100.0;
+            if (Math.Abs(w.Value(at + within) - w.Value(at - 1e-9)) > 1e-2 * Math.Max(1e-3, w.PeakMagnitude))
+                found.Add((d.PartId, at));
         }
         return found;
     }

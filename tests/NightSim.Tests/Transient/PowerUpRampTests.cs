@@ -86,4 +86,24 @@ public sealed class PowerUpRampTests
         Assert.InRange(expected, 6.8, 7.0);
         Assert.Equal(expected, SimulatedPeak(StartMode.PowerUp), expected * 1e-4);
     }
+
+    [Fact]
+    public void A_Mains_Sine_From_Its_Zero_Is_Not_Reported_But_A_Fast_Edge_Is()
+    {
+        // A sine from its zero changes slope at 0 s but moves only 2π·f·V_pk·10 µs = 0.3 % of its peak in the first
+        // hundredth of the 1 ms ramp (calculus, common practice): the ramp does not reshape it. A 1 µs edge does.
+        static Circuit With(double phase) => Circuit.FromDevices("mains",
+        [
+            new VoltageSource("V1", "V1", "in", "gnd", Waveform.Sine(0, 325, 50, 0, phase)),
+            new Resistor("R1", "R1", "in", "gnd", 1e3),
+        ]);
+        var options = TransientOptions.Default with { Start = StartMode.PowerUp };
+        Assert.Empty(PowerUpRamp.SourceCornersInside(With(0), options));
+        var delayed = Circuit.FromDevices("mains-late",
+        [
+            new VoltageSource("V1", "V1", "in", "gnd", Waveform.Pulse(0, 12, 0.5e-3, 1e-6, 1e-6, double.PositiveInfinity, double.PositiveInfinity)),
+            new Resistor("R1", "R1", "in", "gnd", 1e3),
+        ]);
+        Assert.Equal(0.5e-3, Assert.Single(PowerUpRamp.SourceCornersInside(delayed, options)).Corner, 9);
+    }
 }
