@@ -5,13 +5,7 @@ namespace NightSim.Tests.Cli;
 
 public sealed class CheckCommandTests
 {
-    private static (int Exit, string Out, string Err) Run(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int exit = Program.CreateRoot().Parse(args).Invoke(new InvocationConfiguration { Output = output, Error = error });
-        return (exit, output.ToString(), error.ToString());
-    }
+    private static (int Exit, string Out, string Err) Run(params string[] args) => CliRun.Invoke(args);
 
     [Fact]
     public void Valid_Example_Prints_A_Summary_And_Exits_0()

@@ -7,13 +7,7 @@ namespace NightSim.Tests.Cli;
 /// <summary>Hints that point the user at the real mistake.</summary>
 public sealed class CliHintTests
 {
-    private static (int Exit, string Out, string Err) Run(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int exit = Program.CreateRoot().Parse(args).Invoke(new InvocationConfiguration { Output = output, Error = error });
-        return (exit, output.ToString(), error.ToString());
-    }
+    private static (int Exit, string Out, string Err) Run(params string[] args) => CliRun.Invoke(args);
 
     [Theory]
     [InlineData("0x"), InlineData("gdn"), InlineData("GND1"), InlineData("ground"), InlineData("gn")]

@@ -8,13 +8,7 @@ namespace NightSim.Tests.Cli;
 
 public sealed class CompareCommandTests
 {
-    private static (int Exit, string Out, string Err) Run(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int exit = Program.CreateRoot().Parse(args).Invoke(new InvocationConfiguration { Output = output, Error = error });
-        return (exit, output.ToString(), error.ToString());
-    }
+    private static (int Exit, string Out, string Err) Run(params string[] args) => CliRun.Invoke(args);
 
     [Fact]
     public void Names_The_Changed_Parts_And_The_Changed_Nights()

@@ -22,13 +22,7 @@ public sealed class MainsCautionCliTests : IDisposable
         if (Directory.Exists(_dir)) Directory.Delete(_dir, recursive: true);
     }
 
-    private static (int Exit, string Out, string Err) Run(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int exit = Program.CreateRoot().Parse(args).Invoke(new InvocationConfiguration { Output = output, Error = error });
-        return (exit, output.ToString(), error.ToString());
-    }
+    private static (int Exit, string Out, string Err) Run(params string[] args) => CliRun.Invoke(args);
 
     private const string Scenario = """
         { "name": "one-night", "site": { "name": "Invented Field 3", "latitude": 50.1, "longitude": 8.7, "timeZone": "Europe/Berlin" },

@@ -14,13 +14,7 @@ public sealed class OutputFolderTests : IDisposable
 
     public void Dispose() => Directory.Delete(_dir, recursive: true);
 
-    private static (int Exit, string Out, string Err) Run(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int exit = Program.CreateRoot().Parse(args).Invoke(new InvocationConfiguration { Output = output, Error = error });
-        return (exit, output.ToString(), error.ToString());
-    }
+    private static (int Exit, string Out, string Err) Run(params string[] args) => CliRun.Invoke(args);
 
     private static string[] Names(string dir) => [.. Directory.GetFileSystemEntries(dir).Select(Path.GetFileName).Order(StringComparer.Ordinal)!];
 

@@ -6,13 +6,7 @@ namespace NightSim.Tests.Cli;
 /// <summary>The study verbs end to end: sharded runs joined by merge write the same bytes as one run.</summary>
 public sealed class StudyCommandTests
 {
-    private static (int Exit, string Out, string Err) Run(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int exit = Program.CreateRoot().Parse(args).Invoke(new InvocationConfiguration { Output = output, Error = error });
-        return (exit, output.ToString(), error.ToString());
-    }
+    private static (int Exit, string Out, string Err) Run(params string[] args) => CliRun.Invoke(args);
 
     private static string TempDir() => Path.Combine(Path.GetTempPath(), "nightsim-study-" + Guid.NewGuid().ToString("N"));
 

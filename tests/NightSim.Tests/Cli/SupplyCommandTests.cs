@@ -11,13 +11,7 @@ namespace NightSim.Tests.Cli;
 /// Supply/SupplyBudgetTests against hand values).</summary>
 public sealed class SupplyCommandTests
 {
-    private static (int Exit, string Out, string Err) Run(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int exit = Program.CreateRoot().Parse(args).Invoke(new InvocationConfiguration { Output = output, Error = error });
-        return (exit, output.ToString(), error.ToString());
-    }
+    private static (int Exit, string Out, string Err) Run(params string[] args) => CliRun.Invoke(args);
 
     private static string TempDir() => Path.Combine(Path.GetTempPath(), "nightsim-supply-" + Guid.NewGuid().ToString("N"));
 

@@ -8,13 +8,7 @@ namespace NightSim.Tests.Studies;
 /// <summary>`nightsim tune` end to end on a small search: files, schema, the winning netlist, shards and merge, mistakes.</summary>
 public sealed class TuneCommandTests
 {
-    private static (int Exit, string Out, string Err) Run(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int exit = Program.CreateRoot().Parse(args).Invoke(new InvocationConfiguration { Output = output, Error = error });
-        return (exit, output.ToString(), error.ToString());
-    }
+    private static (int Exit, string Out, string Err) Run(params string[] args) => Cli.CliRun.Invoke(args);
 
     [Fact]
     public void Tune_Writes_Every_Candidate_The_Winner_And_Merged_Shards_Equal_The_Whole()
