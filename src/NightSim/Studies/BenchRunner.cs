@@ -13,9 +13,9 @@ namespace NightSim.Studies;
 /// </summary>
 public static class BenchRunner
 {
-    /// <summary>CPU seconds of untimed warm-up runs before a workload is timed (the quiet night needs about 25 runs
+    /// <summary>CPU seconds of untimed warm-up runs before a workload is timed (the quiet night needs 25 to 30 runs
     /// before its last methods are fully optimised).</summary>
-    public const double WarmUpCpu = 2.0;
+    public const double WarmUpCpu = 5.0;
 
     /// <summary>Warm-up CPU with <c>--quick</c>.</summary>
     public const double WarmUpCpuQuick = 0.5;
