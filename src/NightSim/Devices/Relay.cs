@@ -175,6 +175,9 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
     private readonly RelaySettings _settings;
     private readonly double _hotResistance, _pullInCurrent, _dropOutCurrent;
     private readonly RelayContact[] _contacts;
+    // Event signal names, made once so that switching allocates nothing.
+    private readonly string[] _contactSignals;
+    private readonly string? _loadSignal;
     private readonly int[] _contactA;
     private readonly int[] _contactB;
     private readonly PairSlots[] _contactSlots;
@@ -201,6 +204,8 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         _pullInCurrent = settings.PullInCurrent;
         _dropOutCurrent = settings.DropOutCurrent;
         _contacts = [.. contacts];
+        _contactSignals = [.. _contacts.Select(c => "contact " + c.Label)];
+        _loadSignal = settings.LoadName is null ? null : "load " + settings.LoadName;
         _contactA = new int[_contacts.Length];
         _contactB = new int[_contacts.Length];
         _contactSlots = new PairSlots[_contacts.Length];
@@ -443,11 +448,11 @@ public sealed class Relay : Device, IEventSource, ISwitchedLoad
         for (int k = 0; k < _contacts.Length; k++)
         {
             bool closed = IsContactClosed(k);
-            events.Record(this, "contact " + _contacts[k].Label, closed ? "open" : "closed", closed ? "closed" : "open",
+            events.Record(this, _contactSignals[k], closed ? "open" : "closed", closed ? "closed" : "open",
                 _operated ? DeviceEventKind.RelayOperated : DeviceEventKind.RelayReleased);
         }
-        if (_settings.LoadName is not null && wasLoadOn != LoadOn)
-            events.Record(this, "load " + _settings.LoadName, wasLoadOn ? "on" : "off", LoadOn ? "on" : "off",
+        if (_loadSignal is not null && wasLoadOn != LoadOn)
+            events.Record(this, _loadSignal, wasLoadOn ? "on" : "off", LoadOn ? "on" : "off",
                 LoadOn ? DeviceEventKind.LoadOn : DeviceEventKind.LoadOff);
         events.RequestBreakpoint(_armature.End);
     }

@@ -21,6 +21,10 @@ namespace NightSim.Runs;
 /// sensor reads the relay's state; the circuit is assembled after both.</remarks>
 public static class NightRun
 {
+    /// <summary>Rows the zoom windows' store holds before it grows: twelve windows of 12 minutes of the busy bench night
+    /// (a noise pulse every minute, headlights) fit.</summary>
+    public const int ZoomStoreRows = 16384;
+
     /// <summary>Default run length of a plain transient, seconds.</summary>
     public const double DefaultDuration = 86400.0;
 
@@ -53,35 +57,32 @@ public static class NightRun
         var solver = new TransientSolver(circuit, options, light) { Cancellation = request.Cancellation, TraceBuffers = request.TraceBuffers };
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
+        bool capture = request.PlotData && !request.SummaryOnly;
         var zoomIndices = nodes.Select(circuit.IndexOf).ToList();
-        // Long enough for a dusk or a timer's end (minutes); faster events use a few seconds of it.
-        var zoom = new ZoomCapture(zoomIndices) { Before = NightTraces.SlowZoomBefore, After = NightTraces.SlowZoomAfter, MergeWithin = NightTraces.FastZoomAfter };
+        // Long enough for a dusk or a timer's end (minutes); faster events use a few seconds of it. Made only when
+        // plots are, with their ring and store set up before the first step (ZoomStoreRows: about 2.9 MB for 20 nodes).
+        ZoomCapture? zoom = capture
+            ? new ZoomCapture(zoomIndices, storeRows: ZoomStoreRows) { Before = NightTraces.SlowZoomBefore, After = NightTraces.SlowZoomAfter, MergeWithin = NightTraces.FastZoomAfter }
+            : null;
         // A narrow window around each switch-on: the trigger dip and the relay's pull-in take milliseconds.
-        var detail = new ZoomCapture(zoomIndices, maxWindows: 6) { Before = 0.02, After = 0.06 };
+        ZoomCapture? detail = capture ? new ZoomCapture(zoomIndices, ringSize: 1024, maxWindows: 6) { Before = 0.02, After = 0.06 } : null;
         bool[] lastOn = new bool[loads.Count];
         double nextReport = 0;
         // A mains-fed supply is watched at every accepted point (the rail Zener's current, the relay drives, the ripple).
         Supply.SupplyWatch? supplyWatch = Supply.SupplyWatch.Create(circuit);
-        bool capture = request.PlotData && !request.SummaryOnly;
         solver.Accepted = s =>
         {
             supplyWatch?.Observe(s.Time, s.Solution);
-            if (capture)
-            {
-                zoom.Add(s.Time, s.Solution);
-                detail.Add(s.Time, s.Solution);
-            }
+            zoom?.Add(s.Time, s.Solution);
+            detail?.Add(s.Time, s.Solution);
             for (int i = 0; i < lastOn.Length; i++)
             {
                 bool on = loads[i].LoadOn;
                 if (on != lastOn[i])
                 {
                     lastOn[i] = on;
-                    if (capture)
-                    {
-                        zoom.Mark(s.Time, on ? "load on" : "load off");
-                        if (on) detail.Mark(s.Time, "load on");
-                    }
+                    zoom?.Mark(s.Time, on ? "load on" : "load off");
+                    if (on) detail?.Mark(s.Time, "load on");
                 }
             }
             if (progress is not null && s.Time >= nextReport)
@@ -100,7 +101,7 @@ public static class NightRun
         NightReport report = BuildReport(request, profile, facts, analysis, sim);
         TraceTable table = request.SummaryOnly ? TraceTable.Empty : NightTraces.Table(facts, profile, sim, nodes);
         // A long run plots its interesting nights only (PlottedNights states the rule).
-        IReadOnlyList<PlotData> plots = capture
+        IReadOnlyList<PlotData> plots = zoom is not null && detail is not null
             ? NightTraces.Plots(request, facts, analysis, profile, sim, [(zoom, "zoom"), (detail, "detail")], nodes,
                 PlottedNights.Select(report.Nights, report.TargetResults).ToHashSet())
             : [];

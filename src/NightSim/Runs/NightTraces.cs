@@ -148,15 +148,15 @@ public static class NightTraces
         foreach (ZoomCapture.Window w in zoom.Windows)
         {
             k++;
-            if (w.Times.Count < 2 || skipped.Any(s => w.EventTime >= s.From && w.EventTime < s.To)) continue;
+            if (w.Count < 2 || skipped.Any(s => w.EventTime >= s.From && w.EventTime < s.To)) continue;
             AttributedInterval? iv = analysis.Intervals.FirstOrDefault(i => Math.Abs(i.Start - w.EventTime) < 1e-6 || (i.End is double e && Math.Abs(e - w.EventTime) < 1e-6));
             bool isOn = iv is not null && Math.Abs(iv.Start - w.EventTime) < 1e-6;
             // Each zoom sized to its event: dusk, dawn and a timer running out take minutes; a headlight, lightning
             // or a noise pulse takes seconds. The detail plots keep their own millisecond window.
             (double before, double after) = prefix == "detail" ? (zoom.Before, zoom.After)
                 : SlowEvent(facts, iv, isOn, w.EventTime) ? (SlowZoomBefore, SlowZoomAfter) : (FastZoomBefore, FastZoomAfter);
-            double from = Math.Max(w.Times[0], w.EventTime - before), to = Math.Min(w.Times[^1], w.EventTime + after);
-            double[] times = [.. w.Times];
+            double[] times = w.Times;
+            double from = Math.Max(times[0], w.EventTime - before), to = Math.Min(times[^1], w.EventTime + after);
             var series = new List<PlotSeries>();
             if (profile is not null)
             {
@@ -171,12 +171,12 @@ public static class NightTraces
                         series.Add(new PlotSeries($"switching level {ReportText.Lux(level)} lx", "lx", PlotPanel.Light, [from, to], [level, level], Dashed: true));
                 }
             }
-            AttributedInterval? duskOn = analysis.Intervals.FirstOrDefault(i => i.Expected && i.Start >= w.Times[0] && i.Start <= w.Times[^1]);
+            AttributedInterval? duskOn = analysis.Intervals.FirstOrDefault(i => i.Expected && i.Start >= times[0] && i.Start <= times[^1]);
             var byNode = nodes.Select((name, i) => (name, i)).ToDictionary(x => x.name, x => x.i, StringComparer.Ordinal);
             foreach ((string node, string title) in Voltages(roles))
             {
                 if (!byNode.TryGetValue(node, out int i)) continue;
-                double[] values = [.. w.Columns[i]];
+                double[] values = w.Column(i);
                 series.Add(new PlotSeries(title, "V", PlotPanel.Voltages, times, values));
                 if (duskOn is not null && roles.Sensor.Contains(node) && prefix != "detail")
                 {
@@ -186,7 +186,7 @@ public static class NightTraces
             }
             if (roles.Supply is string vcc && byNode.TryGetValue(vcc, out int si) && roles.Timing is not null)
             {
-                double[] supply = [.. w.Columns[si]];
+                double[] supply = w.Column(si);
                 series.Add(new PlotSeries("1/3 supply", "V", PlotPanel.Voltages, times, [.. supply.Select(v => v / 3)], Dashed: true));
                 series.Add(new PlotSeries("2/3 supply", "V", PlotPanel.Voltages, times, [.. supply.Select(v => 2 * v / 3)], Dashed: true));
             }

@@ -20,6 +20,20 @@ public static class SwitchingLevel
     /// <see cref="Darkest"/> and <see cref="Brightest"/>.</summary>
     public static double? Find(NetlistDefinition net, TransientOptions options)
     {
+        // The level belongs to the circuit, not to the night: the nights of a year (one netlist object, one set of
+        // options) solve it once. A netlist with other part values is another object and is solved afresh.
+        if (s_found.TryGetValue(net, out Found? known) && known.Options == options) return known.Level;
+        double? level = Search(net, options);
+        s_found.AddOrUpdate(net, new Found(options, level));
+        return level;
+    }
+
+    private sealed record Found(TransientOptions Options, double? Level);
+
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<NetlistDefinition, Found> s_found = new();
+
+    private static double? Search(NetlistDefinition net, TransientOptions options)
+    {
         try
         {
             List<Device> probe = Create(net);

@@ -4,8 +4,9 @@ namespace NightSim.Runs;
 /// Full-resolution windows around switching events, captured during the run so a zoom plot shows every accepted point
 /// near the event (the night trace is decimated to min/max buckets). Keeps a ring of the last accepted points; when a
 /// watched state changes, copies the ring's last <see cref="Before"/> seconds and keeps appending for
-/// <see cref="After"/> seconds. Steady steps outside a window allocate nothing; a window allocates when it opens and
-/// while it grows during its <see cref="After"/> seconds (at most a dozen windows a run).
+/// <see cref="After"/> seconds. All storage is made up front: the windows' rows go one after another into one store
+/// (only one window is open at a time), so accepted points allocate nothing, inside a window or not. The store doubles
+/// only when the windows of a run hold more rows than it has (a long chattering burst), once per doubling.
 /// </summary>
 public sealed class ZoomCapture
 {
@@ -16,19 +17,32 @@ public sealed class ZoomCapture
     private readonly int _maxWindows;
     private int _head;
     private int _count;
-    private readonly List<Window> _windows = [];
+    private readonly List<Window> _windows;
+    private readonly Window[] _pool;
     private Window? _open;
+
+    // The rows of every window, in the order they were captured.
+    private double[] _times;
+    private double[] _values;
+    private int _rows;
 
     /// <param name="indices">Unknown indices to keep (−1 = ground, kept as 0 V).</param>
     /// <param name="ringSize">Accepted points kept before an event.</param>
     /// <param name="maxWindows">At most this many windows are captured (the rest are counted, not kept).</param>
-    public ZoomCapture(IReadOnlyList<int> indices, int ringSize = 4096, int maxWindows = 12)
+    /// <param name="storeRows">Rows the windows' store holds before it has to grow (default: the ring's size).</param>
+    public ZoomCapture(IReadOnlyList<int> indices, int ringSize = 4096, int maxWindows = 12, int? storeRows = null)
     {
         _indices = [.. indices];
         _width = _indices.Length;
         _ringTimes = new double[ringSize];
         _ringValues = new double[ringSize * _width];
         _maxWindows = maxWindows;
+        _windows = new List<Window>(maxWindows);
+        _pool = new Window[maxWindows];
+        for (int i = 0; i < maxWindows; i++) _pool[i] = new Window(this);
+        int rows = Math.Max(16, storeRows ?? ringSize);
+        _times = new double[rows];
+        _values = new double[rows * _width];
     }
 
     /// <summary>Seconds kept before the event.</summary>
@@ -58,7 +72,7 @@ public sealed class ZoomCapture
 
         if (_open is not null)
         {
-            if (time <= _open.EventTime + After) _open.Append(time, x, _indices);
+            if (time <= _open.EventTime + After) AppendRow(_open, time, _ringValues.AsSpan(slot * _width, _width));
             else _open = null;
         }
     }
@@ -78,7 +92,8 @@ public sealed class ZoomCapture
             _open = null;
         }
         if (_windows.Count >= _maxWindows) return;
-        var w = new Window(time, label, _width);
+        Window w = _pool[_windows.Count];
+        w.Open(time, label, _rows);
         // Copy the ring's points within Before seconds, oldest first.
         int start = (_head - _count + _ringTimes.Length) % _ringTimes.Length;
         for (int n = 0; n < _count; n++)
@@ -89,46 +104,65 @@ public sealed class ZoomCapture
             int nextSlot = (slot + 1) % _ringTimes.Length;
             bool lastBefore = n + 1 < _count && _ringTimes[nextSlot] >= time - Before;
             if (_ringTimes[slot] < time - Before && !lastBefore) continue;
-            w.AppendRow(_ringTimes[slot], _ringValues.AsSpan(slot * _width, _width));
+            AppendRow(w, _ringTimes[slot], _ringValues.AsSpan(slot * _width, _width));
         }
         _windows.Add(w);
         _open = w;
     }
 
-    /// <summary>One captured window: times and one column per kept unknown.</summary>
+    private void AppendRow(Window w, double time, ReadOnlySpan<double> row)
+    {
+        if (_rows == _times.Length)
+        {
+            Array.Resize(ref _times, 2 * _times.Length);
+            Array.Resize(ref _values, 2 * _values.Length);
+        }
+        _times[_rows] = time;
+        row.CopyTo(_values.AsSpan(_rows * _width, _width));
+        _rows++;
+        w.Count++;
+    }
+
+    /// <summary>One captured window: times and one column per kept unknown (arrays made when first read, after the
+    /// run).</summary>
     public sealed class Window
     {
-        private readonly int _width;
+        private readonly ZoomCapture _owner;
+        private double[]? _timesCopy;
 
-        internal Window(double eventTime, string label, int width)
+        internal Window(ZoomCapture owner) => _owner = owner;
+
+        internal void Open(double eventTime, string label, int first)
         {
             EventTime = eventTime;
-            _width = width;
+            First = first;
+            Count = 0;
+            Labels.Clear();
             Labels.Add((eventTime, label));
-            Columns = new List<double>[width];
-            for (int k = 0; k < width; k++) Columns[k] = [];
+            _timesCopy = null;
         }
 
         /// <summary>Run time of the event that opened the window, seconds.</summary>
-        public double EventTime { get; }
+        public double EventTime { get; private set; }
 
         /// <summary>Events inside the window: time and label.</summary>
-        public List<(double Time, string Label)> Labels { get; } = [];
+        public List<(double Time, string Label)> Labels { get; } = new(16);
 
-        public List<double> Times { get; } = [];
+        private int First { get; set; }
 
-        public List<double>[] Columns { get; }
+        /// <summary>Rows in the window.</summary>
+        public int Count { get; internal set; }
 
-        internal void AppendRow(double time, ReadOnlySpan<double> row)
+        /// <summary>Times of the window's rows, seconds.</summary>
+        public double[] Times => _timesCopy ??= _owner._times.AsSpan(First, Count).ToArray();
+
+        /// <summary>Values of kept unknown <paramref name="k"/> (in the order of the indices given) at each row.</summary>
+        public double[] Column(int k)
         {
-            Times.Add(time);
-            for (int k = 0; k < _width; k++) Columns[k].Add(row[k]);
-        }
-
-        internal void Append(double time, ReadOnlySpan<double> x, int[] indices)
-        {
-            Times.Add(time);
-            for (int k = 0; k < _width; k++) Columns[k].Add(indices[k] < 0 ? 0.0 : x[indices[k]]);
+            int width = _owner._width;
+            var column = new double[Count];
+            for (int r = 0; r < Count; r++) column[r] = _owner._values[(First + r) * width + k];
+            return column;
         }
     }
 }

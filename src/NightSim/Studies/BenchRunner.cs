@@ -6,12 +6,23 @@ using NightSim.Runs;
 namespace NightSim.Studies;
 
 /// <summary>
-/// Runs the reference workloads in this process: each twice untimed (the runtime compiles the hot code), then timed
+/// Runs the reference workloads in this process: each untimed until warm (at least twice and <see cref="WarmUpCpu"/>
+/// seconds of CPU: the runtime compiles the hot code), then timed
 /// repetitions; every figure reported is the median over the repetitions. The calibration kernel is timed the same way.
 /// The step counts of a deterministic run are the same in every repetition.
 /// </summary>
 public static class BenchRunner
 {
+    /// <summary>CPU seconds of untimed warm-up runs before a workload is timed (the quiet night needs 25 to 30 runs
+    /// before its last methods are fully optimised).</summary>
+    public const double WarmUpCpu = 5.0;
+
+    /// <summary>Warm-up CPU with <c>--quick</c>.</summary>
+    public const double WarmUpCpuQuick = 0.5;
+
+    /// <summary>Most warm-up runs of one workload.</summary>
+    public const int MaxWarmUpRuns = 40;
+
     /// <summary>Runs the workloads found in <paramref name="demoDir"/>; <paramref name="progress"/> hears each name
     /// before it runs.</summary>
     /// <param name="only">Run only the workloads with these names (null: all).</param>
@@ -42,10 +53,27 @@ public static class BenchRunner
                 continue;
             }
             // The year is long enough to need no warm-up of its own: the shorter workloads before it have compiled the code.
-            int wu = w.Name.StartsWith("quiet-year", StringComparison.Ordinal) ? 0 : warmups;
-            int r = w.Name.StartsWith("quiet-year", StringComparison.Ordinal) ? Math.Min(reps, 3) : reps;
+            bool year = w.Name.StartsWith("quiet-year", StringComparison.Ordinal);
+            int r = year ? Math.Min(reps, 3) : reps;
             var runs = new List<(double Wall, double Cpu, NightRunResult Result)>();
-            for (int i = 0; i < wu + r; i++)
+            // Warm-up: at least two untimed runs, and more until they have spent WarmUpCpu seconds, so that a short
+            // workload's code has been recompiled with full optimisation (the runtime promotes a method after enough
+            // calls and loop iterations, on a background thread whose CPU the process figures would otherwise count).
+            int warm = 0;
+            double warmCpu = 0;
+            while (!year && (warm < warmups || warmCpu < (quick ? WarmUpCpuQuick : WarmUpCpu)) && warm < MaxWarmUpRuns)
+            {
+                var request = w.Build(demoDir);
+                long c0 = CpuTicks();
+                NightRunResult result = NightRun.Run(request);
+                warmCpu += Seconds(CpuTicks() - c0);
+                if (result.Simulation.Failure is SimulationFailure f)
+                    throw new InvalidOperationException($"bench workload {w.Name} failed at {f.Time} s: {f.Reason}");
+                warm++;
+            }
+            // Give the background recompilation a moment so that the timed runs measure optimised code, not the compiler.
+            if (warm > 0) Thread.Sleep(300);
+            for (int i = 0; i < r; i++)
             {
                 var request = w.Build(demoDir);
                 GC.Collect();
@@ -56,10 +84,7 @@ public static class BenchRunner
                 long c1 = CpuTicks();
                 if (result.Simulation.Failure is SimulationFailure f)
                     throw new InvalidOperationException($"bench workload {w.Name} failed at {f.Time} s: {f.Reason}");
-                // After the warm-up runs the runtime recompiles the hot methods with full optimisation on a background
-                // thread; give it a moment so that the timed runs measure optimised code, not the compiler.
-                if (i == wu - 1) Thread.Sleep(300);
-                if (i >= wu) runs.Add((sw.Elapsed.TotalSeconds, Seconds(c1 - c0), result));
+                runs.Add((sw.Elapsed.TotalSeconds, Seconds(c1 - c0), result));
             }
             NightRunResult last = runs[^1].Result;
             SolverStatistics st = last.Simulation.Statistics;

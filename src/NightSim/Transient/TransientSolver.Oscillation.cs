@@ -148,7 +148,7 @@ public sealed partial class TransientSolver
     private string? LastRecordOf(int e)
     {
         if (_eventSource[e] is not Device d) return null;
-        List<DiscreteEvent> log = _eventLog.Events;
+        List<LoggedEvent> log = _eventLog.Events;
         int stop = Math.Max(0, log.Count - 4 * OscMaxFiringsPerCycle);
         for (int i = log.Count - 1; i >= stop; i--)
             if (ReferenceEquals(log[i].Device, d.Name)) return log[i].To;
@@ -161,10 +161,10 @@ public sealed partial class TransientSolver
     {
         if (to - from > OscMaxFiringsPerCycle * 4) return -1;
         long h = to - from;
-        List<DiscreteEvent> log = _eventLog.Events;
+        List<LoggedEvent> log = _eventLog.Events;
         for (int i = from; i < to; i++)
         {
-            DiscreteEvent e = log[i];
+            LoggedEvent e = log[i];
             h = h * 1_000_003 + e.Device.GetHashCode();
             h = h * 1_000_003 + (int)e.Kind;
             h = h * 1_000_003 + e.To.GetHashCode();
@@ -249,7 +249,7 @@ public sealed partial class TransientSolver
     {
         int s0 = Slot(k), s1 = Slot(k - 1), s2 = Slot(k - 2);
         double t = _oscTime[s0], tPrev = _oscTime[s1], tPrev2 = _oscTime[s2];
-        List<DiscreteEvent> log = _eventLog.Events;
+        List<LoggedEvent> log = _eventLog.Events;
         int last = _oscLog[s1], count = _oscLog[s0] - _oscLog[s1], before = _oscLog[s2];
 
         // The events of the skipped cycles: the last cycle's events, each moved by its own per-cycle drift.
@@ -259,7 +259,7 @@ public sealed partial class TransientSolver
             double next = t + SkipSpan(j + 1, period, d1, d2);
             for (int i = 0; i < count; i++)
             {
-                DiscreteEvent e = log[last + i];
+                LoggedEvent e = log[last + i];
                 double offset = e.Time - tPrev;
                 double drift = offset - (log[before + i].Time - tPrev2);
                 double when = Math.Clamp(start + offset + (j + 1) * drift, start, next);

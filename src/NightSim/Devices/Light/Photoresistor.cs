@@ -108,30 +108,41 @@ public sealed class Photoresistor : Device, ILightSensor, IInternalState
     public double Conductance(LoadContext ctx)
     {
         double lux = _light.Lux(ctx);
+        if (!_hasHistory) return SteadyConductance(lux);
+        // Newton evaluates the same instant two or more times per stage: the lag does not depend on the unknowns.
+        if (ctx.Time == _cacheTime && _tAccepted == _cacheAccepted && lux == _cacheLux && _gAccepted == _cacheFrom && _luxAccepted == _cacheLuxFrom) return _cacheG;
         double target = SteadyConductance(lux);
-        if (!_hasHistory) return target;
         double dt = ctx.Time - _tAccepted;
         // Where the target moves by more than SubstepChange (in ln) over the step (a headlight's ramp, a lightning
         // stroke's decay), the light's own course through the step is followed in sub-intervals: the result then does
         // not depend on how long the solver's step is.
         double change = Math.Abs(Math.Log(target / _targetAccepted));
-        if (!(dt > 0.0) || !(change > SubstepChange)) return Relax(_gAccepted, _targetAccepted, target, _luxAccepted, lux, dt);
-        if (ctx.Time == _cacheTime && _tAccepted == _cacheAccepted && lux == _cacheLux) return _cacheG;
-        int n = (int)Math.Min(MaxSubsteps, Math.Ceiling(change / SubstepChange));
-        double g = _gAccepted, tPrev = _tAccepted, targetPrev = _targetAccepted, luxPrev = _luxAccepted;
-        for (int k = 1; k <= n; k++)
+        double g;
+        if (!(dt > 0.0) || !(change > SubstepChange))
         {
-            double tk = k == n ? ctx.Time : _tAccepted + dt * k / n;
-            double luxK = k == n ? lux : _light.Lux(ctx, tk);
-            double targetK = k == n ? target : SteadyConductance(luxK);
-            g = Relax(g, targetPrev, targetK, luxPrev, luxK, tk - tPrev);
-            tPrev = tk;
-            targetPrev = targetK;
-            luxPrev = luxK;
+            g = Relax(_gAccepted, _targetAccepted, target, _luxAccepted, lux, dt);
+        }
+        else
+        {
+            int n = (int)Math.Min(MaxSubsteps, Math.Ceiling(change / SubstepChange));
+            g = _gAccepted;
+            double tPrev = _tAccepted, targetPrev = _targetAccepted, luxPrev = _luxAccepted;
+            for (int k = 1; k <= n; k++)
+            {
+                double tk = k == n ? ctx.Time : _tAccepted + dt * k / n;
+                double luxK = k == n ? lux : _light.Lux(ctx, tk);
+                double targetK = k == n ? target : SteadyConductance(luxK);
+                g = Relax(g, targetPrev, targetK, luxPrev, luxK, tk - tPrev);
+                tPrev = tk;
+                targetPrev = targetK;
+                luxPrev = luxK;
+            }
         }
         _cacheTime = ctx.Time;
         _cacheAccepted = _tAccepted;
         _cacheLux = lux;
+        _cacheFrom = _gAccepted;
+        _cacheLuxFrom = _luxAccepted;
         _cacheG = g;
         return g;
     }
@@ -143,7 +154,7 @@ public sealed class Photoresistor : Device, ILightSensor, IInternalState
     /// <summary>Most sub-intervals per step.</summary>
     public const int MaxSubsteps = 256;
 
-    private double _cacheTime = double.NaN, _cacheAccepted = double.NaN, _cacheLux = double.NaN, _cacheG;
+    private double _cacheTime = double.NaN, _cacheAccepted = double.NaN, _cacheLux = double.NaN, _cacheFrom = double.NaN, _cacheLuxFrom = double.NaN, _cacheG;
 
     /// <summary>The lag over <paramref name="dt"/> from <paramref name="g"/> with the target moving linearly between
     /// the two values; the rise or decay time constant by the sign of the end target against g.</summary>
