@@ -109,6 +109,11 @@ public sealed class AveragedDropper : Device
     /// peak (the charge they move is C·V_pk-sized), not of their instantaneous value.</summary>
     public IReadOnlyList<string> MainsNodes { get; init; } = [];
 
+    /// <summary>With the dropper in the plus leg: the source's plus and the nodes between it and the dropper (through
+    /// series resistors), which the solver sets to the source's value above its minus when it enters full detail, so
+    /// the whole loop meets the returning source consistently; empty otherwise.</summary>
+    public IReadOnlyList<string> SourceSide { get; init; } = [];
+
     /// <summary>+1 when the dropper is in the source's plus leg, −1 in its minus leg.</summary>
     public double LiftSign { get; init; } = 1.0;
 
@@ -282,10 +287,11 @@ public sealed class AveragedDropper : Device
         HashSet<string> plus = Reach(section.Source.Plus), minus = Reach(section.Source.Minus);
         foreach (var (source, sign) in new[] { (plus, 1.0), (minus, -1.0) })
         {
+            List<string> side = sign > 0 ? [.. source.Where(n => !Ground.Is(n))] : [];
             if (source.Contains(N(dropper.P)) && !source.Contains(N(dropper.N)))
-                return new AveragedDropper(model, dropper.N, dropper.P, sign);
+                return new AveragedDropper(model, dropper.N, dropper.P, sign) { SourceSide = side };
             if (source.Contains(N(dropper.N)) && !source.Contains(N(dropper.P)))
-                return new AveragedDropper(model, dropper.P, dropper.N, sign);
+                return new AveragedDropper(model, dropper.P, dropper.N, sign) { SourceSide = side };
         }
         return model;
     }

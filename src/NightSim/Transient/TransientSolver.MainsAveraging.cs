@@ -44,6 +44,8 @@ public sealed partial class TransientSolver
     private double _maAveragedMaxStep;
     private int _maPlus, _maMinus;
     private int _maLiftNode, _maLiftReference; // -2: no lifting
+    private int[] _maSourceSide = [];
+    private int _maSourceMinus;
     // The rail's mean over whole cycles in detail.
     private long _maCycle = long.MinValue;
     private double _maCycleFrom, _maIntegral, _maLastT, _maLastV;
@@ -84,6 +86,8 @@ public sealed partial class TransientSolver
         }
         _maLiftNode = _ma.LiftNode is null ? -2 : _circuit.IndexOf(_ma.LiftNode);
         _maLiftReference = _ma.LiftReference is null ? -1 : _circuit.IndexOf(_ma.LiftReference);
+        _maSourceSide = [.. _ma.SourceSide.Select(_circuit.IndexOf).Where(i => i >= 0)];
+        _maSourceMinus = _circuit.IndexOf(_ma.Source.Nodes[1]);
         if (_maLiftNode == -2)
         {
             // Without the dropper's place in the loop, detail starts only at rising zero crossings: power up in detail.
@@ -162,10 +166,24 @@ public sealed partial class TransientSolver
             double bp = t >= _options.MainsPowerUp ? CircuitBreakpointAfter(t) : double.PositiveInfinity;
             if (bp < _stop)
             {
-                // The last rising zero crossing at least MainsLeadCycles before the breakpoint (or the next one).
                 double lead = bp - _options.MainsLeadCycles * _maPeriod;
-                double z = _maOrigin + Math.Floor((lead - _maOrigin) / _maPeriod) * _maPeriod;
-                due = Math.Min(due, z > t + tiny ? z : RisingZeroCrossingAfter(t, tiny));
+                if (_maLiftNode != -2)
+                {
+                    // MainsLeadCycles before the breakpoint, lifted.
+                    if (lead <= t + tiny)
+                    {
+                        _maSwitchAt = double.PositiveInfinity;
+                        EnterDetail(t);
+                        return;
+                    }
+                    due = Math.Min(due, lead);
+                }
+                else
+                {
+                    // The last rising zero crossing at least MainsLeadCycles before the breakpoint (or the next one).
+                    double z = _maOrigin + Math.Floor((lead - _maOrigin) / _maPeriod) * _maPeriod;
+                    due = Math.Min(due, z > t + tiny ? z : RisingZeroCrossingAfter(t, tiny));
+                }
             }
             _maSwitchAt = Math.Min(_maSwitchAt, due);
             return;
@@ -268,6 +286,13 @@ public sealed partial class TransientSolver
             // the mains was held): the source comes back with the dropper where a running supply has it, no inrush.
             double vdc = (_maPlus >= 0 ? _x[_maPlus] : 0.0) - (_maMinus >= 0 ? _x[_maMinus] : 0.0);
             double vc = _ma.SteadyDropperVoltage(t, vdc);
+            // The source's plus side takes the source's value above its minus (it was held at 0 V), then the dropper's
+            // rectifier side its voltage below that.
+            if (_maSourceSide.Length > 0)
+            {
+                double above = (_maSourceMinus >= 0 ? _x[_maSourceMinus] : 0.0) + _ma.Source.Waveform.Value(t);
+                foreach (int i in _maSourceSide) _x[i] = above;
+            }
             double reference = _maLiftReference >= 0 ? _x[_maLiftReference] : 0.0;
             if (_maLiftNode >= 0) _x[_maLiftNode] = reference - _ma.LiftSign * vc;
             Evaluate(_x, t);
