@@ -140,6 +140,11 @@ public sealed record TransientOptions
     /// <summary>Whole mains cycles whose rail means must agree (2 to 4) before a detail window may end.</summary>
     public int MainsSettledCycles { get; init; } = 3;
 
+    /// <summary>Run time of one window of full mains detail in standby after power-up, seconds (0 = none): the supply's
+    /// standby figures (rail, Zener current, ripple at the trigger) come from its cycles. After the supply findings'
+    /// quiet time of 1 s from power-up.</summary>
+    public double MainsStandbySample { get; init; } = 1.5;
+
     /// <summary>Mains cycles of full detail entered before every known breakpoint (a light event, a scheduled source
     /// edge), so the circuit meets it with the real ripple.</summary>
     public int MainsLeadCycles { get; init; } = 3;

@@ -39,7 +39,8 @@ public sealed partial class TransientSolver
     private double _maAveragedSince;
     private long _maEventsSeen;
     private long _maBreakpointsSeen;
-    private bool _maSuppress;          // NextBreakpoint without the planned switch
+    private bool _maSuppress;
+    private bool _maSampled;          // NextBreakpoint without the planned switch
     private double _maDetailMaxStep;
     private double _maAveragedMaxStep;
     private int _maPlus, _maMinus;
@@ -163,6 +164,20 @@ public sealed partial class TransientSolver
                 }
                 due = RisingZeroCrossingAfter(t, tiny);
             }
+            // One window of standby after power-up: the supply's standby figures (rail, Zener current, ripple at the
+            // trigger) come from full-detail cycles.
+            double sample = _options.MainsStandbySample;
+            if (!_maSampled && _maLiftNode != -2 && sample > 0 && sample < _stop)
+            {
+                if (t + tiny >= sample)
+                {
+                    _maSampled = true;
+                    _maSwitchAt = double.PositiveInfinity;
+                    EnterDetail(t);
+                    return;
+                }
+                due = Math.Min(due, sample);
+            }
             double bp = t >= _options.MainsPowerUp ? CircuitBreakpointAfter(t) : double.PositiveInfinity;
             if (bp < _stop)
             {
@@ -272,6 +287,7 @@ public sealed partial class TransientSolver
     private void EnterDetail(double t)
     {
         _maAveraged = false;
+        if (t >= _options.MainsStandbySample - 1e-9) _maSampled = true;
         _stats.MainsAveragedSeconds += t - _maAveragedSince;
         _stats.MainsDetailWindows++;
         _ma!.Active = false;
