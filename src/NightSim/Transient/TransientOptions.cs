@@ -127,7 +127,7 @@ public sealed record TransientOptions
 
     /// <summary>Full mains detail kept after every event (a comparator or timer flip, a relay operation) and every
     /// breakpoint before the supply may run averaged again, seconds.</summary>
-    public double MainsDetailMinimum { get; init; } = 0.06;
+    public double MainsDetailMinimum { get; init; } = 0.04;
 
     /// <summary>Longest window of full mains detail after its last event, seconds: a rail still sagging then is carried
     /// on by the averaged model.</summary>
@@ -138,7 +138,7 @@ public sealed record TransientOptions
     public double MainsSettledChange { get; init; } = 2e-4;
 
     /// <summary>Whole mains cycles whose rail means must agree (2 to 4) before a detail window may end.</summary>
-    public int MainsSettledCycles { get; init; } = 3;
+    public int MainsSettledCycles { get; init; } = 2;
 
     /// <summary>Run time of one window of full mains detail in standby after power-up, seconds (0 = none): the supply's
     /// standby figures (rail, Zener current, ripple at the trigger) come from its cycles. After the supply findings'
