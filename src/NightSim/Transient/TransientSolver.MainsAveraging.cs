@@ -6,26 +6,30 @@ namespace NightSim.Transient;
 /// <summary>
 /// Mains averaging: a circuit fed from a capacitive dropper runs with the mains cycle-averaged
 /// (<see cref="AveragedDropper"/> injects the dropper's mean current into the rectifier's DC outputs and the mains sine is
-/// held at 0 V) between windows of full mains detail (the sine on, the averaged current off) around power-up, every
-/// event and every known breakpoint.
+/// held at 0 V) between windows of full mains detail (the sine on, the averaged current off) around every event, every
+/// known breakpoint and one standby sample after power-up (docs/supply.md, "Mains averaging").
 /// </summary>
 /// <remarks>
-/// Every switch happens at a rising zero crossing of the mains, landed on as a breakpoint, and restarts the integration.
-/// There the switch is nearly consistent: at the periodic steady state the dropper capacitor holds only
-/// −(V_dc + 2·V_D) at a rising zero crossing (its whole swing happens between the zero crossings), and in averaged mode
-/// its bleeder has taken it to about 0 V. Entering detail thus hands the smoothing capacitor C_drop·(V_dc + 2V_D) less
-/// in the first half-cycle (a few microcoulombs, millivolts on the rail) and no inrush; leaving it strands at most the
-/// same charge on the dropper, which the bleeder takes away.
 /// <list type="bullet">
-/// <item>Detail starts at the next rising zero crossing after any event in averaged mode (a comparator or timer output,
-/// a relay operation) or after a breakpoint landed on, and <see cref="TransientOptions.MainsLeadCycles"/> cycles before
-/// every known breakpoint (light events, scheduled edges).</item>
-/// <item>Detail ends at a rising zero crossing once <see cref="TransientOptions.MainsDetailMinimum"/>
-/// (<see cref="TransientOptions.MainsPowerUpDetail"/> after power-up) has passed since the last event or breakpoint and
-/// the rail's mean over each of the last three whole cycles moved by at most
-/// <see cref="TransientOptions.MainsSettledChange"/> of it plus 1 mV from the cycle before; or once
-/// <see cref="TransientOptions.MainsDetailMaximum"/> has passed; never when a known breakpoint is near.</item>
+/// <item>Entering detail: the solver gives the dropper the voltage it has on the periodic steady state at that instant
+/// (<see cref="AveragedDropper.SteadyDropperVoltage"/>) and the source's side of the loop the source's value, so the
+/// mains returns into a consistent loop at any phase, without inrush; then it restarts. Detail starts at the accepted
+/// point of any event in averaged mode (a comparator or timer output, a relay operation: the pull-in that follows its
+/// drive by milliseconds is in detail), <see cref="TransientOptions.MainsLeadCycles"/> cycles before every known
+/// breakpoint (light events, scheduled edges), and at <see cref="TransientOptions.MainsStandbySample"/>. Without the
+/// dropper's place in the loop the entry waits for a rising zero crossing, where the dropper holds only
+/// −(V_dc + 2·V_D) on the steady state and about 0 V after its bleeder: nearly consistent.</item>
+/// <item>Leaving detail: at a rising zero crossing (landed on as a breakpoint, then a restart), once
+/// <see cref="TransientOptions.MainsDetailMinimum"/> has passed since the last event or breakpoint and the rail's mean
+/// over each of the last <see cref="TransientOptions.MainsSettledCycles"/> whole cycles moved by at most
+/// <see cref="TransientOptions.MainsSettledChange"/> of it plus 1 mV; or once <see cref="TransientOptions.MainsDetailMaximum"/>
+/// has passed; never with a known breakpoint near. The dropper's remaining charge then drains through its bleeder
+/// behind reverse-biased diodes.</item>
+/// <item>Power-up runs averaged; events in its first <see cref="TransientOptions.MainsPowerUp"/> open no window.</item>
+/// <item>The mains side's error is held to the tolerance of the mains peak (the charge it moves is C·V_pk-sized):
+/// an instantaneous-value tolerance shrinks to microvolts at every zero crossing of a bridge terminal.</item>
 /// </list>
+/// The switching allocates nothing; it runs at the top of each step (<see cref="MainsAveragingAt"/>).
 /// </remarks>
 public sealed partial class TransientSolver
 {
