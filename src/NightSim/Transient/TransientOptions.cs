@@ -135,7 +135,7 @@ public sealed record TransientOptions
 
     /// <summary>A detail window ends once the rail's mean over each of the last <see cref="MainsSettledCycles"/> whole
     /// mains cycles moved from the cycle before by at most this fraction of it plus 1 mV.</summary>
-    public double MainsSettledChange { get; init; } = 2e-4;
+    public double MainsSettledChange { get; init; } = 1e-3;
 
     /// <summary>Whole mains cycles whose rail means must agree (2 to 4) before a detail window may end.</summary>
     public int MainsSettledCycles { get; init; } = 2;

@@ -43,8 +43,9 @@ public sealed partial class TransientSolver
     private double _maAveragedSince;
     private long _maEventsSeen;
     private long _maBreakpointsSeen;
-    private bool _maSuppress;
-    private bool _maSampled;          // NextBreakpoint without the planned switch
+    private bool _maSuppress;          // NextBreakpoint without the planned switch
+    private bool _maSampled;
+    private bool _maSampling;          // the window is the standby sample (no event in it so far)
     private double _maDetailMaxStep;
     private double _maAveragedMaxStep;
     private int _maPlus, _maMinus;
@@ -149,6 +150,7 @@ public sealed partial class TransientSolver
         if (t >= _maSwitchAt - tiny)
         {
             _maSwitchAt = double.PositiveInfinity;
+            if (_maAveraged && !_maSampled && _options.MainsStandbySample > 0 && t + tiny >= _options.MainsStandbySample) _maSampling = true;
             if (_maAveraged) EnterDetail(t); else EnterAveraged(t);
             return;
         }
@@ -176,6 +178,7 @@ public sealed partial class TransientSolver
                 if (t + tiny >= sample)
                 {
                     _maSampled = true;
+                    _maSampling = true;
                     _maSwitchAt = double.PositiveInfinity;
                     EnterDetail(t);
                     return;
@@ -212,6 +215,7 @@ public sealed partial class TransientSolver
         ObserveRailCycle(t, v);
         if (events || landed)
         {
+            _maSampling = false;
             _maQuietSince = t;
             _maMeans = 0;
             _maSwitchAt = double.PositiveInfinity;
@@ -227,7 +231,8 @@ public sealed partial class TransientSolver
         double since = t - _maQuietSince;
         double least = _maQuietSince == 0 ? Math.Max(_options.MainsDetailMinimum, _options.MainsPowerUp) : _options.MainsDetailMinimum;
         if (since < least) return false;
-        if (since < _options.MainsDetailMaximum && !RailSettled()) return false;
+        // The standby sample needs whole cycles of the settled standby, not a settling check of its own.
+        if (since < _options.MainsDetailMaximum && !_maSampling && !RailSettled()) return false;
         double bp = CircuitBreakpointAfter(t);
         return !(bp < _stop) || bp - t > (_options.MainsLeadCycles + 3) * _maPeriod;
     }
@@ -280,6 +285,7 @@ public sealed partial class TransientSolver
 
     private void EnterAveraged(double t)
     {
+        _maSampling = false;
         _maAveraged = true;
         _maAveragedSince = t;
         _ma!.Active = true;
