@@ -46,7 +46,7 @@ internal static class SimulateCommand
         accuracy.AcceptOnlyFromAmong("loose", "normal", "tight");
         var mainsDetail = new Option<string>("--mains-detail")
         {
-            Description = "Night runs of a mains-fed (capacitive-dropper) design: windows (the supply cycle-averaged, with full mains detail around power-up, every event and every light event; fast) or full (every mains cycle simulated, for comparison: several CPU-hours per night).",
+            Description = "Night runs of a mains-fed (capacitive-dropper) design: windows (the supply cycle-averaged, with full mains detail around every event, before every light event and in one standby sample; fast) or full (every mains cycle simulated, for comparison: several CPU-hours per night).",
             DefaultValueFactory = _ => "windows",
         };
         mainsDetail.AcceptOnlyFromAmong("windows", "full");
