@@ -128,6 +128,37 @@ public sealed class MainsAveragingTests
     }
 
     /// <summary>
+    /// Half-wave with a Zener shunt on the AC side (the averaged current f·C·(2·V_pk − V_dc − 2·V_D), worked out in
+    /// docs/supply.md from the charge balance of the clamped AC node; the existing hand budget for this topology is
+    /// f·C·(2V_pk − V_Z − V_F), DropperTopologyTests): all averaged, the rail matches full detail within 1 %, both with the
+    /// Zener regulating (1 kΩ load: rail V_Z − V_D) and with the load taking more than the dropper gives (680 Ω).
+    /// </summary>
+    [Theory]
+    [InlineData(1000.0)]
+    [InlineData(680.0)]
+    public void Half_Wave_Averaged_Rail_Matches_Full_Detail(double load)
+    {
+        List<Device> Parts() =>
+        [
+            new VoltageSource("VM", "VM", "line", "gnd", Waveform.Sine(0, Peak, Hz, 0, 0)),
+            new Resistor("RF", "RF", "line", "l1", 47),
+            new Capacitor("CX", "CX", "l1", "a", Dropper),
+            new Resistor("RBL", "RBL", "l1", "a", 1e6),
+            Zener.Create("DZ", "DZ", "gnd", "a", 12, 5e-3, 10),
+            new Diode("D1", "D1", "a", "vcc"),
+            new Capacitor("CS", "CS", "vcc", "gnd", 470e-6),
+            new Resistor("RL", "RL", "vcc", "gnd", load),
+        ];
+        List<Device> averagedParts = Parts();
+        Assert.Equal(RectifierShape.HalfWave, AveragedDropper.For(averagedParts)!.Shape);
+        var averaged = SupplyMeter.Run(Averaged(averagedParts), 2.0, 1.5, "vcc", "gnd", options: TransientOptions.Default);
+        var full = SupplyMeter.Run(Circuit.FromDevices("full", Parts()), 2.0, 1.5, "vcc", "gnd",
+            options: TransientOptions.Default with { MainsAveraging = false });
+        Assert.True(averaged.Result.Succeeded && full.Result.Succeeded);
+        Assert.InRange(averaged.Average, 0.99 * full.Average, 1.01 * full.Average);
+    }
+
+    /// <summary>
     /// Entering full detail part-way through a mains cycle (three cycles before the coil's scheduled switch, at a phase
     /// the switch sets) gives the dropper its steady-state charge: the mains current in the first cycle stays within the
     /// steady peak V_pk·2πf·C (I = V·2πfC for a capacitor, common practice) plus 30 %, and the rail does not jump. Without
