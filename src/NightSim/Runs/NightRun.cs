@@ -90,7 +90,9 @@ public static class NightRun
             if (progress is not null && s.Time >= nextReport)
             {
                 progress.Report(Math.Clamp(s.Time / stop, 0, 1));
-                nextReport = s.Time + stop / 400;
+                // Fine enough that a slow run (every mains cycle in full detail: hours per night) still moves the bar
+                // and its time estimate every few seconds.
+                nextReport = s.Time + stop / 20000;
             }
         };
         SimulationResult sim = solver.Run(stop);
