@@ -16,7 +16,7 @@ internal static class BenchCommand
         var format = new Option<string>("--format") { Description = "Output format", DefaultValueFactory = _ => "text" };
         format.AcceptOnlyFromAmong("text", "json");
         var demos = new Option<string?>("--demos") { Description = "Folder with the demo netlists (default: netlists/ in this folder or above)" };
-        var only = new Option<string[]>("--workload") { Description = "Run only these workloads (quiet-night, busy-night, chatter-night, quiet-year or quiet-month, spread-1000 or spread-20)", AllowMultipleArgumentsPerToken = true };
+        var only = new Option<string[]>("--workload") { Description = "Run only these workloads (quiet-night, busy-night, chatter-night, dropper-night, dropper-night-120, quiet-year or quiet-month, spread-1000 or spread-20)", AllowMultipleArgumentsPerToken = true };
         var cmd = new Command("bench", "Time the solver on fixed reference workloads (medians; CPU, steps, Newton iterations, allocation, on-time error)");
         cmd.Options.Add(quick);
         cmd.Options.Add(format);

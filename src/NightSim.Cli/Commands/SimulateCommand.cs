@@ -44,6 +44,12 @@ internal static class SimulateCommand
             DefaultValueFactory = _ => "normal",
         };
         accuracy.AcceptOnlyFromAmong("loose", "normal", "tight");
+        var mainsDetail = new Option<string>("--mains-detail")
+        {
+            Description = "Night runs of a mains-fed (capacitive-dropper) design: windows (the supply cycle-averaged, with full mains detail around every event, before every light event and in one standby sample; fast) or full (every mains cycle simulated, for comparison: several CPU-hours per night).",
+            DefaultValueFactory = _ => "windows",
+        };
+        mainsDetail.AcceptOnlyFromAmong("windows", "full");
         var noPlots = new Option<bool>("--no-plots") { Description = "Skip the SVG/PNG plots (faster; report.html then has no figures)." };
         var lux = new Option<string?>("--lux")
         {
@@ -81,6 +87,7 @@ internal static class SimulateCommand
         command.Options.Add(failOn);
         command.Options.Add(noPlots);
         command.Options.Add(accuracy);
+        command.Options.Add(mainsDetail);
         command.SetAction(pr => CliErrors.Run(pr, (output, error) =>
         {
             FileInfo net = pr.GetValue(netlist)!;
@@ -97,7 +104,7 @@ internal static class SimulateCommand
                 if (pr.GetValue(lux) is not null)
                     error.WriteLine($"warning: --lux does not apply to a night run: the scenario {scenarioPath} lights the sensors. hint: use --for DURATION for a plain transient under constant light");
                 var settings = new SimulateNight.Settings(net.ToString(), scenarioPath, pr.GetValue(nights), pr.GetValue(outDir)!,
-                    pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots), pr.GetValue(accuracy)!);
+                    pr.GetValue(format)!, pr.GetValue(noProgress), pr.GetValue(failOn), pr.GetValue(noPlots), pr.GetValue(accuracy)!, pr.GetValue(mainsDetail)!);
                 return SimulateNight.Execute(settings, Terminal.For(output), output, error);
             }
             if (durationText is null)

@@ -25,7 +25,8 @@ internal static class SimulateNight
         bool NoProgress,
         string? FailOn,
         bool NoPlots,
-        string Accuracy = "normal");
+        string Accuracy = "normal",
+        string MainsDetail = "windows");
 
     /// <summary>The companion scenario of a demo netlist: &lt;name&gt;.scenario.json beside &lt;name&gt;.json, or null.</summary>
     public static string? CompanionScenario(string netlistPath)
@@ -102,7 +103,7 @@ internal static class SimulateNight
             Scenario = scenario,
             ScenarioPath = s.ScenarioPath,
             Tool = "nightsim " + typeof(SimulateNight).Assembly.GetName().Version?.ToString(3),
-            Options = Transient.TransientOptions.ForAccuracy(s.Accuracy) ?? Transient.TransientOptions.Default,
+            Options = (Transient.TransientOptions.ForAccuracy(s.Accuracy) ?? Transient.TransientOptions.Default) with { MainsAveraging = s.MainsDetail != "full" },
             Cancellation = interrupt.Token,
         };
         // Progress goes to standard error, so standard output carries only the report (redirect it to a file freely).

@@ -57,10 +57,13 @@ public sealed class VoltageSource : Device
         _branch = setup.BranchBetween(setup.Node(Nodes[0]), setup.Node(Nodes[1]), Name + ".i");
     }
 
+    /// <summary>True while the solver holds the source at 0 V (a mains source while its supply runs cycle-averaged).</summary>
+    internal bool Held { get; set; }
+
     public override void Load(LoadContext ctx)
     {
         _branch.Load(ctx);
-        ctx.J[_branch.K] -= Waveform.Value(ctx.Time) * ctx.SourceScale;
+        if (!Held) ctx.J[_branch.K] -= Waveform.Value(ctx.Time) * ctx.SourceScale;
     }
 
     public override double NextBreakpoint(double time) => Waveform.NextBreakpoint(time);

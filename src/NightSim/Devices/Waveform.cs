@@ -174,6 +174,9 @@ public sealed class Waveform
     /// <summary>Start time of a sine (its phase origin), seconds; 0 for every other shape.</summary>
     public double SineStart => Shape == WaveformShape.Sine ? _values[3] : 0.0;
 
+    /// <summary>Phase of a sine at its start, radians; 0 for every other shape.</summary>
+    public double SinePhase => Shape == WaveformShape.Sine ? _values[4] : 0.0;
+
     /// <summary>Value at run time <paramref name="time"/> (seconds), in the source's unit. Pure.</summary>
     public double Value(double time)
     {

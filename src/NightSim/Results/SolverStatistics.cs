@@ -40,6 +40,13 @@ public sealed class SolverStatistics
     /// <summary>Periods of the periodic source skipped by envelope jumps.</summary>
     public long SkippedCycles { get; internal set; }
 
+    /// <summary>Windows of full mains detail a cycle-averaged supply run entered (power-up included; 0 when the run was
+    /// in full detail throughout).</summary>
+    public long MainsDetailWindows { get; internal set; }
+
+    /// <summary>Simulated time the mains supply ran cycle-averaged, seconds.</summary>
+    public double MainsAveragedSeconds { get; internal set; }
+
     /// <summary>Jumps over identical cycles of an oscillation (docs/numerics.md §10).</summary>
     public long OscillationJumps { get; internal set; }
 

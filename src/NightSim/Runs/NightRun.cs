@@ -50,6 +50,9 @@ public static class NightRun
         }
         if (problems.Count > 0) throw new RunInputException(problems);
 
+        // A capacitive-dropper supply runs cycle-averaged between windows of full mains detail (docs/supply.md): its
+        // averaged model joins the circuit as an engine-internal device (no part, never reported).
+        if (request.Options.MainsAveraging && Supply.AveragedDropper.For(devices) is { } averaged) devices.Add(averaged);
         Circuit circuit = Circuit.FromDevices(net.Name, devices, light);
         // The nodes, plus each relay's coil current: the analysis compares the coil against its pull-in from it.
         List<string> recorded = [.. nodes, .. devices.Select(d => d.Role).OfType<RelayCoilRole>().Select(r => r.CoilCurrent)];
@@ -88,7 +91,9 @@ public static class NightRun
             if (progress is not null && s.Time >= nextReport)
             {
                 progress.Report(Math.Clamp(s.Time / stop, 0, 1));
-                nextReport = s.Time + stop / 400;
+                // Fine enough that a slow run (every mains cycle in full detail: hours per night) still moves the bar
+                // and its time estimate every few seconds.
+                nextReport = s.Time + stop / 20000;
             }
         };
         SimulationResult sim = solver.Run(stop);

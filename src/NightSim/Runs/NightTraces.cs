@@ -91,7 +91,7 @@ public static class NightTraces
                 if (summary is { Missed: true } && Darkest(lux, n) is (double at, double darkest))
                     markers.Add(new PlotMarker(at, $"darkest {ReportText.Lux(darkest)} lx", Emphasis: true));
             }
-            foreach ((string node, string title) in Voltages(roles))
+            foreach ((string node, string title) in Voltages(roles, facts.Supply is not null))
             {
                 if (sim.Trace(node) is not Trace tr) continue;
                 series.Add(Slice(tr, from, to, title));
@@ -173,7 +173,7 @@ public static class NightTraces
             }
             AttributedInterval? duskOn = analysis.Intervals.FirstOrDefault(i => i.Expected && i.Start >= times[0] && i.Start <= times[^1]);
             var byNode = nodes.Select((name, i) => (name, i)).ToDictionary(x => x.name, x => x.i, StringComparer.Ordinal);
-            foreach ((string node, string title) in Voltages(roles))
+            foreach ((string node, string title) in Voltages(roles, facts.Supply is not null))
             {
                 if (!byNode.TryGetValue(node, out int i)) continue;
                 double[] values = w.Column(i);
@@ -249,11 +249,14 @@ public static class NightTraces
         return best < 0 ? null : (lux.Times[best], lux.Values[best]);
     }
 
-    private static IEnumerable<(string Node, string Title)> Voltages(NodeRoles roles)
+    /// <param name="rail">True for a mains-fed supply: its rail is drawn too (the sag and ripple the circuit runs on).</param>
+    private static IEnumerable<(string Node, string Title)> Voltages(NodeRoles roles, bool rail = false)
     {
         foreach (string s in roles.Sensor) yield return (s, $"sensor (node {s})");
         if (roles.Trigger is string t) yield return (t, $"trigger pin (node {t})");
         if (roles.Timing is string c && c != roles.Trigger) yield return (c, $"timing capacitor (node {c})");
+        // Last, so it is drawn over a trigger pin pulled up to it.
+        if (rail && roles.Supply is string vcc) yield return (vcc, $"supply rail (node {vcc})");
     }
 
     private static void AddThirds(List<PlotSeries> series, NodeRoles roles, SimulationResult sim, double[] times)

@@ -21,6 +21,9 @@ public sealed record BenchWorkload(string Name, string Description, Func<string,
         new("busy-night", $"driveway demo plus {BusyNightEvents.HeadlightCount} headlight passes, a {BusyNightEvents.FlashCount}-flash storm and a noise pulse per minute on the trigger node",
             dir => Busy(dir)),
         new("chatter-night", "self-lit demo: the lamp lights its own sensor and the relay chatters at dusk and dawn", dir => Demo(dir, "dusk-switch-self-lit")),
+        new("dropper-night", "the garden-path timer on its own 230 V / 50 Hz capacitive dropper: one clear November night, the supply cycle-averaged with windows of full mains detail (compare quiet-night: the same stage on an ideal rail)",
+            dir => Demo(dir, "garden-path-dropper-230")),
+        new("dropper-night-120", "the same on a 120 V / 60 Hz dropper", dir => Demo(dir, "garden-path-dropper-120")),
         quick
             ? new("quiet-month", "garden-path demo through 30 nights", dir => Demo(dir, "garden-path", 30))
             : new("quiet-year", "garden-path demo through 365 nights", dir => Demo(dir, "garden-path", 365)),

@@ -116,6 +116,39 @@ public sealed record TransientOptions
     /// <summary>Full detail kept after power-up, every event and every breakpoint before the next jump, seconds.</summary>
     public double EnvelopeDetailWindow { get; init; } = 1.0;
 
+    /// <summary>Mains averaging: when the circuit holds the cycle-averaged model of a capacitive-dropper supply
+    /// (Supply.AveragedDropper, added by the night run), run the mains cycle-averaged between windows of full mains
+    /// detail around power-up, events and breakpoints (docs/supply.md). False: full mains detail throughout.</summary>
+    public bool MainsAveraging { get; init; } = true;
+
+    /// <summary>Power-up: the supply runs averaged from t = 0 and the events of the first this-many seconds (the timer and
+    /// comparators finding their states while the rail comes up) open no window of full detail, seconds.</summary>
+    public double MainsPowerUp { get; init; } = 0.5;
+
+    /// <summary>Full mains detail kept after every event (a comparator or timer flip, a relay operation) and every
+    /// breakpoint before the supply may run averaged again, seconds.</summary>
+    public double MainsDetailMinimum { get; init; } = 0.04;
+
+    /// <summary>Longest window of full mains detail after its last event, seconds: a rail still sagging then is carried
+    /// on by the averaged model.</summary>
+    public double MainsDetailMaximum { get; init; } = 10.0;
+
+    /// <summary>A detail window ends once the rail's mean over each of the last <see cref="MainsSettledCycles"/> whole
+    /// mains cycles moved from the cycle before by at most this fraction of it plus 1 mV.</summary>
+    public double MainsSettledChange { get; init; } = 1e-3;
+
+    /// <summary>Whole mains cycles whose rail means must agree (2 to 4) before a detail window may end.</summary>
+    public int MainsSettledCycles { get; init; } = 2;
+
+    /// <summary>Run time of one window of full mains detail in standby after power-up, seconds (0 = none): the supply's
+    /// standby figures (rail, Zener current, ripple at the trigger) come from its cycles. After the supply findings'
+    /// quiet time of 1 s from power-up.</summary>
+    public double MainsStandbySample { get; init; } = 1.5;
+
+    /// <summary>Mains cycles of full detail entered before every known breakpoint (a light event, a scheduled source
+    /// edge), so the circuit meets it with the real ripple.</summary>
+    public int MainsLeadCycles { get; init; } = 3;
+
     /// <summary>Oscillation skipping: once three cycles of a switching oscillation (a relay chattering at dusk) were
     /// alike, jump whole cycles forward along their measured per-cycle change, writing their events (docs/numerics.md
     /// §10). False: every cycle in full detail.</summary>

@@ -36,7 +36,7 @@ public sealed partial class TransientSolver
     private readonly Device[] _devices;
 
     /// <summary>Longest step: the options' limit and every device's own (a sine source's fraction of its period), s.</summary>
-    private readonly double _maxStep;
+    private double _maxStep; // lifted while the mains runs cycle-averaged
     private readonly LoadContext _ctx;
     private readonly ILinearSolver _solver;
     private readonly int _n;
@@ -240,6 +240,7 @@ public sealed partial class TransientSolver
         SetTolerances();
         ExcludeFloorOnlyNodesFromNorm();
         SetUpEnvelope();
+        SetUpMainsAveraging();
         SetUpInternalStates();
         SetUpOscillationSkipping();
         if (_options.Start == StartMode.PowerUp) _needRestart = !AlgebraicRowsSatisfied();
@@ -285,6 +286,7 @@ public sealed partial class TransientSolver
         double t = _time.Value;
         if (t >= _stop) return false;
         if (TryEnvelopeJump()) return _time.Value < _stop;
+        MainsAveragingAt();
         // Smallest step: a couple of ulps of the absolute time, so that t + γh is still a distinct time for the devices;
         // the step itself is carried exactly (SimTime keeps the rounding). 16 ulps (6e-11 s five hours into a night)
         // was too coarse for a transistor discharging a coil's winding capacitance in 2 ns.
@@ -459,6 +461,7 @@ public sealed partial class TransientSolver
     /// <summary>Collect the result.</summary>
     internal SimulationResult Finish()
     {
+        FinishMainsAveraging();
         _stats.Factorizations = _solver.Factorizations;
         _stats.PivotAnalyses = _solver.Analyses;
         _stats.CpuSeconds = (Environment.CpuUsage.TotalTime.Ticks - _cpuStart) / (double)TimeSpan.TicksPerSecond;
@@ -886,7 +889,7 @@ public sealed partial class TransientSolver
             if (b > t + tiny && b < bp) bp = b;
         }
         double r = _requested.NextAfter(t + tiny);
-        return Math.Min(Math.Min(bp, r), EnvelopeBoundaryAfter(t, tiny));
+        return Math.Min(Math.Min(bp, r), Math.Min(EnvelopeBoundaryAfter(t, tiny), MainsSwitchAfter(t, tiny)));
     }
 
     // ---------------------------------------------------------------- recorder and diagnostics
