@@ -820,17 +820,20 @@ public sealed partial class TransientSolver
         for (int i = 0; i < _n; i++)
         {
             if (!_inNorm[i]) continue;
-            double w = rtol * Math.Max(Math.Abs(_x[i]), Math.Abs(_xNew[i])) + _atol[i];
-            double ei = _err[i];
+            double ei = _err[i], xi = _x[i], xn = _xNew[i];
             int anchor = _groupAnchor.Length > 0 ? _groupAnchor[i] : -1;
             if (anchor >= 0)
             {
                 // A floating group's common mode (its potential against ground, held only by the floor capacitance) is
                 // not a circuit quantity and its solution is noisy while the rectifier is off (a 4 700 µF capacitor
-                // beside a 10 pF floor: condition ~10^8); measure the group's nodes against its anchor instead.
+                // beside a 10 pF floor: condition ~10^8); measure the group's nodes against its anchor instead, value
+                // and weight alike.
                 if (anchor == i) continue;
                 ei -= _err[anchor];
+                xi -= _x[anchor];
+                xn -= _xNew[anchor];
             }
+            double w = rtol * Math.Max(Math.Abs(xi), Math.Abs(xn)) + _atol[i];
             double e = Math.Abs(ei) / w;
             if (!(e <= r)) r = e; // NaN propagates as a rejection
         }
