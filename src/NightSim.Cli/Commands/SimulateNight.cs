@@ -131,10 +131,12 @@ internal static class SimulateNight
         NightReport report = result.Report;
         var written = new List<string>();
         string reportPath = Path.Combine(dir, "report.json");
-        OutputException.Guard(reportPath, () => JsonReportWriter.Write(report, reportPath));
+        // A failure names the file as the user will find it, not its place in the staging folder.
+        string At(string file) => Path.Combine(set.Target, Path.GetFileName(file));
+        OutputException.Guard(At(reportPath), () => JsonReportWriter.Write(report, reportPath));
         written.Add(reportPath);
         string tracePath = Path.Combine(dir, "trace.csv");
-        OutputException.Guard(tracePath, () => CsvTraceWriter.Write(result.Traces, tracePath));
+        OutputException.Guard(At(tracePath), () => CsvTraceWriter.Write(result.Traces, tracePath));
         written.Add(tracePath);
 
         var figures = new List<HtmlFigure>();
@@ -145,7 +147,7 @@ internal static class SimulateNight
             foreach (PlotData data in result.Plots)
             {
                 PlotModel model = NightPlotBuilder.Build(data);
-                PlotFiles files = OutputException.Guard(Path.Combine(dir, data.FileStem + ".svg"), () => PlotWriter.Write(model, dir, data.FileStem));
+                PlotFiles files = OutputException.Guard(At(data.FileStem + ".svg"), () => PlotWriter.Write(model, dir, data.FileStem));
                 written.Add(files.SvgPath);
                 if (files.PngPath is not null) written.Add(files.PngPath);
                 plotWarning ??= files.Warning;
@@ -153,7 +155,7 @@ internal static class SimulateNight
             }
         }
         string htmlPath = Path.Combine(dir, "report.html");
-        OutputException.Guard(htmlPath, () => HtmlReportWriter.Write(report, figures, htmlPath));
+        OutputException.Guard(At(htmlPath), () => HtmlReportWriter.Write(report, figures, htmlPath));
         written.Add(htmlPath);
         Commit(set, error);
 
@@ -184,15 +186,15 @@ internal static class SimulateNight
         string dir = set.Staging;
         var written = new List<string>();
         string reportPath = Path.Combine(dir, "report-partial.json");
-        OutputException.Guard(set.Target, () => PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, Math.Max(planned, reached), reached, clock,
+        OutputException.Guard(Path.Combine(set.Target, "report-partial.json"), () => PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, Math.Max(planned, reached), reached, clock,
             failure, result.Simulation.Statistics), reportPath));
         written.Add(reportPath);
         string tracePath = Path.Combine(dir, "trace-partial.csv");
-        OutputException.Guard(set.Target, () => CsvTraceWriter.Write(result.Traces, tracePath));
+        OutputException.Guard(Path.Combine(set.Target, "trace-partial.csv"), () => CsvTraceWriter.Write(result.Traces, tracePath));
         written.Add(tracePath);
         if (!s.NoPlots && LastStretch(result, reached, failure?.Reason ?? "interrupted") is { } data)
         {
-            PlotFiles files = OutputException.Guard(set.Target, () => PlotWriter.Write(NightPlotBuilder.Build(data), dir, data.FileStem));
+            PlotFiles files = OutputException.Guard(Path.Combine(set.Target, data.FileStem + ".svg"), () => PlotWriter.Write(NightPlotBuilder.Build(data), dir, data.FileStem));
             written.Add(files.SvgPath);
             if (files.PngPath is not null) written.Add(files.PngPath);
         }
