@@ -205,12 +205,12 @@ internal static class SimulateCommand
         // The two files go in as one set, replacing every file an earlier run wrote into the folder (OutputSet).
         using (OutputSet set = OutputException.Guard(outDir.FullName, () => OutputSet.Begin(outDir.FullName)))
         {
-            OutputException.Guard(outDir.FullName, () => AtomicFile.Write(Path.Combine(set.Staging, "trace.csv"), stream =>
+            OutputException.Guard(Path.Combine(outDir.FullName, "trace.csv"), () => AtomicFile.Write(Path.Combine(set.Staging, "trace.csv"), stream =>
             {
                 using var writer = new StreamWriter(stream, leaveOpen: true);
                 TraceCsv.Write(result.Traces, writer);
             }));
-            OutputException.Guard(outDir.FullName, () => AtomicFile.Write(Path.Combine(set.Staging, "statistics.json"), stream => StatisticsJson.Write(result, stream)));
+            OutputException.Guard(Path.Combine(outDir.FullName, "statistics.json"), () => AtomicFile.Write(Path.Combine(set.Staging, "statistics.json"), stream => StatisticsJson.Write(result, stream)));
             SimulateNight.Commit(set, error);
         }
         string tracePath = Path.Combine(outDir.FullName, "trace.csv");

@@ -134,10 +134,12 @@ internal static class SimulateNight
         NightReport report = result.Report;
         var written = new List<string>();
         string reportPath = Path.Combine(dir, "report.json");
-        OutputException.Guard(reportPath, () => JsonReportWriter.Write(report, reportPath));
+        // A failure names the file as the user will find it, not its place in the staging folder.
+        string At(string file) => Path.Combine(set.Target, Path.GetFileName(file));
+        OutputException.Guard(At(reportPath), () => JsonReportWriter.Write(report, reportPath));
         written.Add(reportPath);
         string tracePath = Path.Combine(dir, "trace.csv");
-        OutputException.Guard(tracePath, () => CsvTraceWriter.Write(result.Traces, tracePath));
+        OutputException.Guard(At(tracePath), () => CsvTraceWriter.Write(result.Traces, tracePath));
         written.Add(tracePath);
 
         IReadOnlyList<HtmlFigure> figures = [];
@@ -150,7 +152,7 @@ internal static class SimulateNight
             List<(PlotModel, string, string)> overview = report.Nights.Count > 1
                 ? [(NightsOverviewPlot.Build(report, plotted.ToHashSet()), NightsOverviewPlot.FileStem, $"Every night: when the lamp was on ({report.Nights.Count} nights)")]
                 : [];
-            PlotSetResult plots = PlotSetWriter.WriteAll(result.Plots, dir, (svg, write) => OutputException.Guard(svg, write), overview);
+            PlotSetResult plots = PlotSetWriter.WriteAll(result.Plots, dir, (svg, write) => OutputException.Guard(At(svg), write), overview);
             foreach (PlotFiles files in plots.Files)
             {
                 written.Add(files.SvgPath);
@@ -160,7 +162,7 @@ internal static class SimulateNight
             figures = plots.Figures;
         }
         string htmlPath = Path.Combine(dir, "report.html");
-        OutputException.Guard(htmlPath, () => HtmlReportWriter.Write(report, figures, htmlPath));
+        OutputException.Guard(At(htmlPath), () => HtmlReportWriter.Write(report, figures, htmlPath));
         written.Add(htmlPath);
         Commit(set, error);
 
@@ -195,15 +197,15 @@ internal static class SimulateNight
         string dir = set.Staging;
         var written = new List<string>();
         string reportPath = Path.Combine(dir, "report-partial.json");
-        OutputException.Guard(set.Target, () => PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, Math.Max(planned, reached), reached, clock,
+        OutputException.Guard(Path.Combine(set.Target, "report-partial.json"), () => PartialReportWriter.Write(new PartialReportWriter.Content(s.NetlistPath, s.ScenarioPath, Math.Max(planned, reached), reached, clock,
             failure, result.Simulation.Statistics), reportPath));
         written.Add(reportPath);
         string tracePath = Path.Combine(dir, "trace-partial.csv");
-        OutputException.Guard(set.Target, () => CsvTraceWriter.Write(result.Traces, tracePath));
+        OutputException.Guard(Path.Combine(set.Target, "trace-partial.csv"), () => CsvTraceWriter.Write(result.Traces, tracePath));
         written.Add(tracePath);
         if (!s.NoPlots && LastStretch(result, reached, failure?.Reason ?? "interrupted") is { } data)
         {
-            PlotFiles files = OutputException.Guard(set.Target, () => PlotWriter.Write(NightPlotBuilder.Build(data), dir, data.FileStem));
+            PlotFiles files = OutputException.Guard(Path.Combine(set.Target, data.FileStem + ".svg"), () => PlotWriter.Write(NightPlotBuilder.Build(data), dir, data.FileStem));
             written.Add(files.SvgPath);
             if (files.PngPath is not null) written.Add(files.PngPath);
         }
