@@ -16,23 +16,7 @@ public sealed class EnvelopeAccuracyTests
 {
     private const double SwitchAt = 15.0, Stop = 30.0;
 
-    private static Circuit Dropper() => Circuit.FromDevices("dropper-relay",
-    [
-        new VoltageSource("VM", "VM", "line", "neutral", Waveform.Sine(0, 230 * Math.Sqrt(2), 50, 0, 0)),
-        new Resistor("RF", "RF", "line", "l1", 47),
-        new Capacitor("CX", "CX", "l1", "ac1", 470e-9),
-        new Resistor("RBL", "RBL", "l1", "ac1", 1e6),
-        new Diode("D1", "D1", "ac1", "dcp"),
-        new Diode("D2", "D2", "neutral", "dcp"),
-        new Diode("D3", "D3", "gnd", "ac1"),
-        new Diode("D4", "D4", "gnd", "neutral"),
-        new Capacitor("CS", "CS", "dcp", "gnd", 470e-6),
-        Zener.Create("DZ", "DZ", "gnd", "dcp", 12, 5e-3, 10),
-        new Resistor("RL", "RL", "dcp", "gnd", 1000),
-        new Switch("S1", "S1", "coil", "gnd", 0.1, 1e9, false, [(SwitchAt, 1.0)]),
-        new Relay("K1", "K1", "dcp", "coil", [], new RelaySettings()),
-        new Diode("DF", "DF", "coil", "dcp"),
-    ]);
+    private static Circuit Dropper() => Circuit.FromDevices("dropper-relay", RelayDropperCircuit.Devices(SwitchAt));
 
     private sealed record Measured(double Average, double SagMin, double OperateTime, long Skipped);
 
