@@ -90,7 +90,7 @@ internal static class StudyCommon
         if (sc is null) throw new StudyFileException([$"{netlistPath}: error: no scenario. hint: give --scenario FILE or put {Path.GetFileNameWithoutExtension(netlistPath)}.scenario.json beside the netlist"]);
         LightScenario scenario = ScenarioLoader.LoadOrThrow(sc);
         // A study keeps each run's outcome only: no night or zoom plot data is built for its runs.
-        return new NightRunRequest { Netlist = loaded.Definition!, NetlistPath = netlistPath, Scenario = scenario, ScenarioPath = sc, Tool = Tool, PlotData = false };
+        return new NightRunRequest { Netlist = loaded.Definition!, NetlistPath = netlistPath, Scenario = scenario, ScenarioPath = sc, Tool = Tool };
     }
 
     /// <summary>Creates the output folder; a file in its place, or a folder that cannot be made, is an output failure (exit 5).</summary>

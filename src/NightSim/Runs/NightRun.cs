@@ -60,7 +60,7 @@ public static class NightRun
         var solver = new TransientSolver(circuit, options, light) { Cancellation = request.Cancellation, TraceBuffers = request.TraceBuffers };
 
         List<ISwitchedLoad> loads = devices.OfType<ISwitchedLoad>().Where(l => l.LoadName is not null).ToList();
-        bool capture = request.PlotData && !request.SummaryOnly;
+        bool capture = !request.SummaryOnly;
         var zoomIndices = nodes.Select(circuit.IndexOf).ToList();
         // Long enough for a dusk or a timer's end (minutes); faster events use a few seconds of it. Made only when
         // plots are, with their ring and store set up before the first step (ZoomStoreRows: about 2.9 MB for 20 nodes).

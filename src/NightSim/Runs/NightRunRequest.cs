@@ -32,10 +32,6 @@ public sealed record NightRunRequest
     /// <summary>Tool name and version for the report.</summary>
     public string Tool { get; init; } = "nightsim";
 
-    /// <summary>Build the plot data (night plots, zooms and details, with the capture windows they need). Studies that
-    /// keep only each run's outcome turn it off.</summary>
-    public bool PlotData { get; init; } = true;
-
     /// <summary>A study's run: the report and the analysis only, no trace table, plot data or zoom windows (the result's
     /// <see cref="NightRunResult.Traces"/> and <see cref="NightRunResult.Plots"/> are then empty).</summary>
     public bool SummaryOnly { get; init; }

@@ -78,7 +78,7 @@ public sealed class YearStudy
 
     /// <summary>The night run of one date again, this time with its plot data (the same run as the study's, so the
     /// same outcome).</summary>
-    public NightRunResult RunWithPlots(DateOnly date) => NightRun.Run(_base with { Scenario = NightOf(date), PlotData = true });
+    public NightRunResult RunWithPlots(DateOnly date) => NightRun.Run(_base with { Scenario = NightOf(date) });
 
     /// <summary>The dates whose nights get their own plots (the rule of <see cref="PlottedNights"/>).</summary>
     public static IReadOnlyList<DateOnly> PlottedDates(IReadOnlyList<YearNight> nights) =>
